@@ -1,0 +1,82 @@
+import * as z from 'zod/mini';
+import { TOKEN_TYPES } from '../rules/TextRules.js';
+
+/** The `format` member every lexicon file carries. */
+export const LEXICON_FORMAT = 'lexlock.lexicon';
+/** The lexicon file format version this lexlock writes; bumped on any incompatible change. */
+export const FORMAT_VERSION = 1;
+
+const count = z.number().check(z.int(), z.minimum(0));
+const share = z.number().check(z.minimum(0), z.maximum(1));
+const side = z.enum(['pre', 'post']);
+
+/** Text rules as stored in a lexicon. */
+export const rulesSchema = z.strictObject({
+  level: z.enum(['word', 'char']),
+  unicode: z.enum(['NFKC', 'NFC', 'none']),
+  case: z.enum(['lower', 'keep']),
+  drop: z.array(z.enum(TOKEN_TYPES)),
+  collapse: z.array(z.enum(TOKEN_TYPES)),
+  tokenizer: z.string().check(z.minLength(1)),
+});
+
+/** Shape as stored in a lexicon. */
+export const shapeSchema = z.strictObject({
+  length: z.number().check(z.int(), z.minimum(1)),
+  pad: side,
+  cut: side,
+});
+
+/** Everything that decides an id, and nothing else: the part the fingerprint covers. */
+export const encodingSchema = z.strictObject({
+  rules: rulesSchema,
+  layout: z.strictObject({
+    oov: z.enum(['first', 'last']),
+    reserved: count,
+  }),
+  tokens: z.array(z.string().check(z.minLength(1))),
+  labels: z.nullable(z.array(z.string())),
+  shape: z.nullable(shapeSchema),
+});
+
+const lengthSummary = z.strictObject({ min: count, p50: count, p90: count, p95: count, p99: count, max: count });
+
+/** What the corpus looked like when the lexicon was built: the baseline for drift checks. */
+export const fitSchema = z.strictObject({
+  createdAt: z.string(),
+  lexlockVersion: z.string(),
+  source: z.nullable(z.string()),
+  cap: z.nullable(count),
+  minCount: count,
+  documents: count,
+  tokens: count,
+  types: count,
+  oovTokens: count,
+  oovRate: share,
+  length: lengthSummary,
+  labels: z.array(z.strictObject({ label: z.string(), documents: count, tokens: count })),
+  coverage: z.array(z.strictObject({ cap: count, share })),
+  truncation: z.nullable(z.strictObject({ length: count, truncatedDocuments: count, droppedTokens: count })),
+});
+
+/** A probe text and the tokens it gave when the lexicon was built. */
+export const canarySchema = z.strictObject({ text: z.string(), tokens: z.array(z.string()) });
+
+/** The whole lexicon file, format version 1. */
+export const lexiconFileSchema = z.strictObject({
+  format: z.literal(LEXICON_FORMAT),
+  formatVersion: z.literal(FORMAT_VERSION),
+  fingerprint: z.string().check(z.regex(/^sha256:[0-9a-f]{64}$/)),
+  fit: z.nullable(fitSchema),
+  canaries: z.array(canarySchema),
+  encoding: encodingSchema,
+});
+
+/** Everything that decides an id (see {@link encodingSchema}). */
+export type Encoding = z.infer<typeof encodingSchema>;
+/** The corpus baseline stored beside the encoding. */
+export type Fit = z.infer<typeof fitSchema>;
+/** One canary: probe text and expected tokens. */
+export type Canary = z.infer<typeof canarySchema>;
+/** The parsed lexicon file. */
+export type LexiconFile = z.infer<typeof lexiconFileSchema>;

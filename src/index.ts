@@ -1,0 +1,25 @@
+// lexlock's browser-safe public API: nothing below this file imports node: modules.
+export { VERSION } from './version.js';
+export { LexlockError, isLexlockError, formatWhere, type Where, type LexlockErrorCode } from './LexlockError.js';
+export {
+  resolveRules,
+  DEFAULT_RULES,
+  TOKEN_TYPES,
+  WORD_TOKENIZER,
+  CHAR_TOKENIZER,
+  type TextRules,
+  type TextRulesInput,
+  type TokenType,
+} from './rules/TextRules.js';
+export { tokenize } from './rules/tokenize.js';
+export { Tally, type LabelledText, type LabelCounts } from './tally/Tally.js';
+export { nearestRank, summarizeLengths, type LengthSummary } from './tally/nearestRank.js';
+export { freeze, type FreezeOptions } from './lexicon/freeze.js';
+export { Lexicon, PADDING_ID, type Batch, type EncodeOptions } from './lexicon/Lexicon.js';
+export { checkShape, type Shape } from './lexicon/Shape.js';
+export { parseLexicon, type ParseLexiconOptions } from './artifact/parseLexicon.js';
+export { serializeLexicon } from './artifact/serializeLexicon.js';
+export { canonicalJson } from './artifact/canonicalJson.js';
+export { fingerprintOf } from './artifact/fingerprint.js';
+export { PROBE_TEXTS } from './artifact/canaries.js';
+export { FORMAT_VERSION, LEXICON_FORMAT, type Encoding, type Fit, type Canary, type LexiconFile } from './artifact/schema.js';

@@ -1,0 +1,206 @@
+import { LexlockError } from '../LexlockError.js';
+import { fingerprintOf } from '../artifact/fingerprint.js';
+import type { Canary, Encoding, Fit } from '../artifact/schema.js';
+import { tokenize } from '../rules/tokenize.js';
+import type { TextRules } from '../rules/TextRules.js';
+import type { LabelledText } from '../tally/Tally.js';
+import { shapeInto, type Shape } from './Shape.js';
+
+/** Id 0 is always padding. */
+export const PADDING_ID = 0;
+
+/**
+ * Fixed-shape ids for many documents: `ids` is row-major (`rows` x `length`), ready to hand to a
+ * tensor constructor as is; `lengths[r]` is how many ids of row r are tokens (the rest is padding);
+ * `labels[r]` is row r's label id (-1 for none) when the input had labels.
+ */
+export interface Batch {
+  ids: Int32Array;
+  lengths: Int32Array;
+  rows: number;
+  length: number;
+  labels?: Int32Array;
+}
+
+/** Options of {@link Lexicon.encode}: a shape to apply, or `null` for variable length. */
+export interface EncodeOptions {
+  /** Default: the lexicon's own shape (variable length when it has none). */
+  shape?: Shape | null;
+}
+
+/**
+ * A frozen vocabulary with its rules: the one object that turns text into ids and back.
+ * Build one with `freeze`, or load one with `parseLexicon` / `loadLexicon`.
+ * @example
+ * const ids = lexicon.encode('the ferry was late'); // Int32Array of ids
+ * lexicon.decode(ids) // ['the', 'ferry', 'was', 'late']
+ */
+export class Lexicon {
+  readonly encoding: Encoding;
+  readonly fingerprint: string;
+  readonly fit: Fit | null;
+  readonly canaries: readonly Canary[];
+  /** The id unknown tokens get. */
+  readonly oovId: number;
+  /** First id of the token list (`encoding.tokens[0]`). */
+  private readonly firstTokenId: number;
+  private readonly ids: Map<string, number>;
+  private readonly labelIds: Map<string, number>;
+
+  /**
+   * Wraps a checked encoding. `fingerprint` is computed when not given; callers that pass one
+   * (parseLexicon) have already compared it with the computed one.
+   */
+  constructor(encoding: Encoding, fit: Fit | null = null, canaries: readonly Canary[] = [], fingerprint?: string) {
+    this.encoding = encoding;
+    this.fit = fit;
+    this.canaries = canaries;
+    this.fingerprint = fingerprint ?? fingerprintOf(encoding);
+    const n = encoding.tokens.length;
+    this.firstTokenId = encoding.layout.oov === 'first' ? 2 : 1;
+    this.oovId = encoding.layout.oov === 'first' ? 1 : n + 1;
+    this.ids = new Map();
+    for (let i = 0; i < n; i++) {
+      const token = encoding.tokens[i] as string;
+      const previous = this.ids.get(token);
+      if (previous !== undefined) {
+        throw new LexlockError(
+          'DUPLICATE_TOKEN',
+          `encoding.tokens: "${token}" stands at ids ${previous} and ${i + this.firstTokenId}; every token must appear once`,
+          { field: 'encoding.tokens' },
+        );
+      }
+      this.ids.set(token, i + this.firstTokenId);
+    }
+    this.labelIds = new Map((encoding.labels ?? []).map((label, i) => [label, i]));
+  }
+
+  /** The model's input dimension: padding + OOV + every token (largest id + 1). */
+  get size(): number {
+    return this.encoding.tokens.length + 2;
+  }
+
+  /** The text rules this lexicon tokenizes with. */
+  get rules(): TextRules {
+    return this.encoding.rules;
+  }
+
+  /** The stored shape, or null when encoding is variable-length by default. */
+  get shape(): Shape | null {
+    return this.encoding.shape;
+  }
+
+  /** The label list (id = position), or an empty list when the lexicon has no labels. */
+  get labels(): readonly string[] {
+    return this.encoding.labels ?? [];
+  }
+
+  /** The id of a token, or {@link oovId} when it is not in the vocabulary. */
+  idOf(token: string): number {
+    return this.ids.get(token) ?? this.oovId;
+  }
+
+  /** True when the token has an id of its own. */
+  has(token: string): boolean {
+    return this.ids.has(token);
+  }
+
+  /** The token with this id; null for padding and OOV. Throws `ID_OUT_OF_RANGE` for ids outside 0…size-1. */
+  tokenAt(id: number): string | null {
+    if (!Number.isInteger(id) || id < 0 || id >= this.size) {
+      throw new LexlockError('ID_OUT_OF_RANGE', `id ${id} is outside 0…${this.size - 1}; was it made with another lexicon?`, {});
+    }
+    if (id === PADDING_ID || id === this.oovId) return null;
+    return this.encoding.tokens[id - this.firstTokenId] ?? null;
+  }
+
+  /** The id of a label; throws `UNKNOWN_LABEL` when the lexicon does not know it. */
+  labelId(label: string): number {
+    const id = this.labelIds.get(label);
+    if (id === undefined) {
+      throw new LexlockError(
+        'UNKNOWN_LABEL',
+        `label "${label}" is not one of the lexicon's ${this.labels.length} labels; rebuild the lexicon with it or drop those documents`,
+        {},
+      );
+    }
+    return id;
+  }
+
+  /** The label with this id. */
+  labelAt(id: number): string {
+    const label = this.labels[id];
+    if (label === undefined) throw new LexlockError('ID_OUT_OF_RANGE', `label id ${id} is outside 0…${this.labels.length - 1}`, {});
+    return label;
+  }
+
+  /** Tokens of a text under this lexicon's rules. */
+  tokenize(text: string): string[] {
+    return tokenize(text, this.encoding.rules);
+  }
+
+  /** Ids of already-tokenized text, variable length. */
+  idsOf(tokens: readonly string[]): Int32Array {
+    const out = new Int32Array(tokens.length);
+    for (let i = 0; i < tokens.length; i++) out[i] = this.ids.get(tokens[i] as string) ?? this.oovId;
+    return out;
+  }
+
+  /**
+   * Encodes one text: variable length, or shaped (the lexicon's shape by default, or `options.shape`).
+   * @example lexicon.encode('late again', { shape: { length: 4, pad: 'pre', cut: 'post' } }) // [0, 0, 17, 93]
+   */
+  encode(text: string, options: EncodeOptions = {}): Int32Array {
+    const ids = this.idsOf(this.tokenize(text));
+    const shape = options.shape === undefined ? this.encoding.shape : options.shape;
+    if (shape === null) return ids;
+    const out = new Int32Array(shape.length);
+    shapeInto(ids, shape, out, 0);
+    return out;
+  }
+
+  /**
+   * Encodes many texts into one row-major batch. Without a shape (given or stored) every row is as
+   * long as the longest text, padded at the end.
+   * @example const { ids, rows, length } = lexicon.encodeMany(texts); // a rows x length int32 tensor
+   */
+  encodeMany(texts: Iterable<string | LabelledText>, options: EncodeOptions = {}): Batch {
+    const rowsIds: Int32Array[] = [];
+    const labels: number[] = [];
+    let labelled = false;
+    for (const item of texts) {
+      const text = typeof item === 'string' ? item : item.text;
+      rowsIds.push(this.idsOf(this.tokenize(text)));
+      const label = typeof item === 'string' ? undefined : item.label;
+      if (label !== undefined) labelled = true;
+      labels.push(label === undefined ? -1 : this.labelId(label));
+    }
+    const given = options.shape === undefined ? this.encoding.shape : options.shape;
+    let longest = 1;
+    for (const row of rowsIds) if (row.length > longest) longest = row.length;
+    const shape: Shape = given ?? { length: longest, pad: 'post', cut: 'post' };
+    const rows = rowsIds.length;
+    const ids = new Int32Array(rows * shape.length);
+    const lengths = new Int32Array(rows);
+    rowsIds.forEach((row, r) => {
+      lengths[r] = shapeInto(row, shape, ids, r * shape.length);
+    });
+    const batch: Batch = { ids, lengths, rows, length: shape.length };
+    if (labelled) batch.labels = Int32Array.from(labels);
+    return batch;
+  }
+
+  /**
+   * Tokens for ids, padding left out, OOV shown as `oov` (default `<oov>`).
+   * @example lexicon.decode([0, 0, 17, 1]) // ['late', '<oov>']
+   */
+  decode(ids: ArrayLike<number>, oov = '<oov>'): string[] {
+    const out: string[] = [];
+    for (let i = 0; i < ids.length; i++) {
+      const id = ids[i] as number;
+      if (id === PADDING_ID) continue;
+      out.push(this.tokenAt(id) ?? oov);
+    }
+    return out;
+  }
+}

@@ -1,0 +1,128 @@
+import { LexlockError } from '../LexlockError.js';
+import { makeCanaries } from '../artifact/canaries.js';
+import type { Encoding, Fit } from '../artifact/schema.js';
+import { summarizeLengths } from '../tally/nearestRank.js';
+import type { Tally } from '../tally/Tally.js';
+import { VERSION } from '../version.js';
+import { Lexicon } from './Lexicon.js';
+import { rankTokens } from './rankTokens.js';
+import { checkShape, type Shape } from './Shape.js';
+
+/** How a tally becomes a lexicon. Every member is optional. */
+export interface FreezeOptions {
+  /** Keep at most this many ranked tokens; null or absent keeps all. */
+  cap?: number | null;
+  /** Drop tokens counted fewer times (default 1). */
+  minCount?: number;
+  /** `first`: OOV is id 1 (default); `last`: OOV is the last id. */
+  oov?: 'first' | 'last';
+  /** Tokens that take the ids right after the specials, whether or not the corpus has them. */
+  reserved?: readonly string[];
+  /** The fixed shape encodings get by default. */
+  shape?: Shape | null;
+  /** Store the tally's labels (default true; false builds a lexicon without labels). */
+  labels?: boolean;
+  /** A few short corpus texts to keep as canaries beside the fixed probes. */
+  snippets?: readonly string[];
+  /** Name of the corpus, for the fit record. */
+  source?: string | null;
+  /** Time of the build, for the fit record (default now). */
+  now?: Date;
+}
+
+/** Caps at which the fit records coverage (besides the chosen cap and all tokens). */
+const COVERAGE_CAPS = [10, 100, 1000, 2000, 5000, 10000, 20000, 50000, 100000, 200000, 500000, 1000000];
+
+function wholeNumber(value: number, name: string, min: number): number {
+  if (!Number.isSafeInteger(value) || value < min) {
+    throw new LexlockError('BAD_OPTION', `${name}: ${String(value)} is not a whole number of at least ${min}`, { field: name });
+  }
+  return value;
+}
+
+/**
+ * Freezes a tally into a lexicon (encoding contract, rule 4): drop tokens under `minCount`, rank by
+ * count then string order, keep the first `cap`; id 0 is padding, OOV first (1) or last.
+ * @example const lexicon = freeze(tally, { cap: 20000, shape: { length: 80, pad: 'pre', cut: 'pre' } });
+ */
+export function freeze(tally: Tally, options: FreezeOptions = {}): Lexicon {
+  const cap = options.cap === undefined || options.cap === null ? null : wholeNumber(options.cap, 'cap', 0);
+  const minCount = wholeNumber(options.minCount ?? 1, 'minCount', 1);
+  const oov = options.oov ?? 'first';
+  if (oov !== 'first' && oov !== 'last') {
+    throw new LexlockError('BAD_OPTION', `oov: "${String(oov)}" is not a place; use first or last`, { field: 'oov' });
+  }
+  const reserved = [...(options.reserved ?? [])];
+  const reservedSet = new Set<string>();
+  for (const r of reserved) {
+    if (r === '') throw new LexlockError('BAD_OPTION', 'reserved: a reserved token cannot be empty', { field: 'reserved' });
+    if (reservedSet.has(r)) throw new LexlockError('BAD_OPTION', `reserved: "${r}" is listed twice`, { field: 'reserved' });
+    reservedSet.add(r);
+  }
+  const shape = options.shape ? checkShape({ ...options.shape }) : null;
+
+  const ranked = rankTokens(tally.counts, minCount).filter(([t]) => !reservedSet.has(t));
+  const kept = cap === null ? ranked : ranked.slice(0, cap);
+  const withLabels = options.labels ?? true;
+  const labels = withLabels && tally.labels.size > 0 ? [...tally.labels.keys()].sort() : null;
+
+  const encoding: Encoding = {
+    rules: tally.rules,
+    layout: { oov, reserved: reserved.length },
+    tokens: [...reserved, ...kept.map(([t]) => t)],
+    labels,
+    shape,
+  };
+
+  let inVocabulary = 0;
+  for (const [, n] of kept) inVocabulary += n;
+  for (const r of reserved) inVocabulary += tally.counts.get(r) ?? 0;
+  const oovTokens = tally.tokens - inVocabulary;
+
+  const allRanked = rankTokens(tally.counts, 1);
+  const caps = new Set(COVERAGE_CAPS.filter((c) => c < allRanked.length));
+  if (cap !== null) caps.add(Math.min(cap, allRanked.length));
+  caps.add(allRanked.length);
+  const sortedCaps = [...caps].sort((a, b) => a - b);
+  const coverage: Fit['coverage'] = [];
+  let covered = 0;
+  let i = 0;
+  for (const c of sortedCaps) {
+    for (; i < c; i++) covered += (allRanked[i] as [string, number])[1];
+    coverage.push({ cap: c, share: tally.tokens === 0 ? 0 : covered / tally.tokens });
+  }
+
+  let truncation: Fit['truncation'] = null;
+  if (shape !== null) {
+    let truncatedDocuments = 0;
+    let droppedTokens = 0;
+    for (const [len, docs] of tally.lengths) {
+      if (len > shape.length) {
+        truncatedDocuments += docs;
+        droppedTokens += (len - shape.length) * docs;
+      }
+    }
+    truncation = { length: shape.length, truncatedDocuments, droppedTokens };
+  }
+
+  const fit: Fit = {
+    createdAt: (options.now ?? new Date()).toISOString(),
+    lexlockVersion: VERSION,
+    source: options.source ?? null,
+    cap,
+    minCount,
+    documents: tally.documents,
+    tokens: tally.tokens,
+    types: tally.types,
+    oovTokens,
+    oovRate: tally.tokens === 0 ? 0 : oovTokens / tally.tokens,
+    length: summarizeLengths(tally.lengths),
+    labels: [...tally.labels.entries()]
+      .sort((a, b) => (a[0] < b[0] ? -1 : a[0] > b[0] ? 1 : 0))
+      .map(([label, c]) => ({ label, documents: c.documents, tokens: c.tokens })),
+    coverage,
+    truncation,
+  };
+
+  return new Lexicon(encoding, fit, makeCanaries(tally.rules, options.snippets ?? []));
+}
