@@ -38,6 +38,8 @@ export type LexlockErrorCode =
   | 'BAD_TEXT'
   | 'OUTPUT_EXISTS'
   | 'IO'
+  | 'NPY_SHAPE'
+  | 'WRITER_CLOSED'
   | 'USAGE_UNKNOWN_FLAG'
   | 'USAGE_BAD_VALUE'
   | 'USAGE_MISSING'

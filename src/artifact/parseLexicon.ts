@@ -1,6 +1,7 @@
 import { inputError, isLexlockError, type Where } from '../LexlockError.js';
 import { Lexicon } from '../lexicon/Lexicon.js';
 import { checkCanaries } from './canaries.js';
+import { describeIssue, memberPath } from './describeIssue.js';
 import { fingerprintOf } from './fingerprint.js';
 import { migrate } from './migrate.js';
 import { lexiconFileSchema } from './schema.js';
@@ -15,11 +16,6 @@ export interface ParseLexiconOptions {
   source?: string;
 }
 
-function pathOf(path: ReadonlyArray<PropertyKey>): string {
-  let out = '';
-  for (const p of path) out += typeof p === 'number' ? `[${p}]` : out === '' ? String(p) : `.${String(p)}`;
-  return out === '' ? '(top level)' : out;
-}
 
 /**
  * Reads a lexicon from its JSON text or parsed object: format and version, schema, fingerprint,
@@ -42,8 +38,8 @@ export function parseLexicon(input: string | object, options: ParseLexiconOption
   if (!parsed.success) {
     const issues = parsed.error.issues;
     const first = issues[0];
-    const field = first === undefined ? '(top level)' : pathOf(first.path);
-    const listed = issues.slice(0, 3).map((i) => `${pathOf(i.path)}: ${i.message}`).join('; ');
+    const field = first === undefined ? '(top level)' : memberPath(first.path);
+    const listed = issues.slice(0, 3).map((i) => describeIssue(i, doc)).join('; ');
     const more = issues.length > 3 ? ` (and ${issues.length - 3} more)` : '';
     throw inputError('BAD_LEXICON', { ...where, field }, `not a valid lexicon: ${listed}${more}; rebuild it with lexlock build`);
   }

@@ -46,6 +46,8 @@ export const fitSchema = z.strictObject({
   createdAt: z.string(),
   lexlockVersion: z.string(),
   source: z.nullable(z.string()),
+  textField: z.nullable(z.string()),
+  labelField: z.nullable(z.string()),
   cap: z.nullable(count),
   minCount: count,
   documents: count,

@@ -66,7 +66,7 @@ export class Lexicon {
       if (previous !== undefined) {
         throw new LexlockError(
           'DUPLICATE_TOKEN',
-          `encoding.tokens: "${token}" stands at ids ${previous} and ${i + this.firstTokenId}; every token must appear once`,
+          `"${token}" stands at ids ${previous} and ${i + this.firstTokenId}; every token must appear once in encoding.tokens`,
           { field: 'encoding.tokens' },
         );
       }

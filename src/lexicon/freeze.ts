@@ -26,6 +26,8 @@ export interface FreezeOptions {
   snippets?: readonly string[];
   /** Name of the corpus, for the fit record. */
   source?: string | null;
+  /** The corpus fields the text and labels came from, recorded so `encode` can default to them. */
+  fields?: { text: string | null; label: string | null };
   /** Time of the build, for the fit record (default now). */
   now?: Date;
 }
@@ -109,6 +111,8 @@ export function freeze(tally: Tally, options: FreezeOptions = {}): Lexicon {
     createdAt: (options.now ?? new Date()).toISOString(),
     lexlockVersion: VERSION,
     source: options.source ?? null,
+    textField: options.fields?.text ?? null,
+    labelField: options.fields?.label ?? null,
     cap,
     minCount,
     documents: tally.documents,
