@@ -1,0 +1,31 @@
+// The demo: builds a lexicon from the invented ferry-operator messages, encodes them into .npy
+// files ready for training, and verifies the lexicon, all through the lexlock CLI.
+// Run with `npm run demo` (after `npm ci`, which builds dist/).
+import { existsSync } from 'node:fs';
+import { fileURLToPath } from 'node:url';
+import { dirname, join, relative } from 'node:path';
+
+const root = join(dirname(fileURLToPath(import.meta.url)), '..');
+const built = join(root, 'dist', 'node.js');
+if (!existsSync(built)) {
+  console.error('dist/ is missing: run `npm ci` (or `npm run build`) first.');
+  process.exit(1);
+}
+const { run } = await import(built);
+const at = (p) => relative(process.cwd(), join(root, p)) || '.';
+const io = { stdout: process.stdout, stderr: process.stderr, env: process.env };
+
+const corpus = at('corpora-demo/ferry-messages.csv');
+const lexicon = at('demo-out/ferry-lexicon.json');
+const encoded = at('demo-out/ferry-encoded');
+const steps = [
+  ['build', corpus, '-o', lexicon, '--label', 'topic', '--cap', '5000', '--length', '64', '--pad', 'pre', '--force'],
+  ['encode', corpus, '--lexicon', lexicon, '-o', encoded, '--force'],
+  ['verify', lexicon],
+];
+for (const argv of steps) {
+  console.log(`\n$ lexlock ${argv.join(' ')}`);
+  const code = await run(argv, io);
+  if (code !== 0) process.exit(code);
+}
+console.log(`\nDone: ${encoded}/ids.npy, lengths.npy and labels.npy are ready for a training script.`);
