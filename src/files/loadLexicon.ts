@@ -1,0 +1,20 @@
+import { readFile } from 'node:fs/promises';
+import { LexlockError } from '../LexlockError.js';
+import { parseLexicon, type ParseLexiconOptions } from '../artifact/parseLexicon.js';
+import type { Lexicon } from '../lexicon/Lexicon.js';
+
+/**
+ * Reads and checks a lexicon file (schema, fingerprint, canaries; see parseLexicon).
+ * @example const lexicon = await loadLexicon('model/lexicon.json', { expectFingerprint: 'sha256:…' });
+ */
+export async function loadLexicon(path: string, options: Omit<ParseLexiconOptions, 'source'> = {}): Promise<Lexicon> {
+  let text: string;
+  try {
+    text = await readFile(path, 'utf8');
+  } catch (e) {
+    const err = e as NodeJS.ErrnoException;
+    const what = err.code === 'ENOENT' ? 'no such file' : err.code === 'EISDIR' ? 'is a folder, not a lexicon file' : err.message;
+    throw new LexlockError('IO', `${path}: cannot read the lexicon (${what}); pass the path of a file written by lexlock build`, { file: path });
+  }
+  return parseLexicon(text, { ...options, source: path });
+}

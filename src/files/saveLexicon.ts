@@ -1,0 +1,19 @@
+import { serializeLexicon } from '../artifact/serializeLexicon.js';
+import type { Lexicon } from '../lexicon/Lexicon.js';
+import { writeFileAtomic } from './atomicWrite.js';
+import { assertWritable } from './refuseOverwrite.js';
+
+/** Options of {@link saveLexicon}. */
+export interface SaveLexiconOptions {
+  /** Replace an existing file (default false: refuse with OUTPUT_EXISTS). */
+  force?: boolean;
+}
+
+/**
+ * Writes a lexicon file atomically (temporary file in the same folder, fsync, rename): a crash or
+ * Ctrl-C leaves the old file or the new one, never half of one.
+ */
+export async function saveLexicon(path: string, lexicon: Lexicon, options: SaveLexiconOptions = {}): Promise<void> {
+  await assertWritable(path, options.force ?? false);
+  await writeFileAtomic(path, serializeLexicon(lexicon));
+}
