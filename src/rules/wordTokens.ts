@@ -6,7 +6,7 @@ import { splitAlien } from './splitAlien.js';
 const wink = winkTokenizer();
 
 /**
- * Word-level tokens of already-normalized text (encoding contract, rule 2): wink-tokenizer's token
+ * Tokens at the word level, of already-normalized text (encoding contract, rule 2): wink-tokenizer's token
  * values in order, empty ones dropped, alien tokens split again, then the `drop` and `collapse` options.
  */
 export function wordTokens(text: string, rules: Pick<TextRules, 'drop' | 'collapse'>): string[] {

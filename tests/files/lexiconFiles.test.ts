@@ -1,0 +1,43 @@
+import { readFile, readdir, writeFile } from 'node:fs/promises';
+import { afterEach, beforeEach, describe, expect, it } from 'vitest';
+import { loadLexicon } from '../../src/files/loadLexicon.js';
+import { saveLexicon } from '../../src/files/saveLexicon.js';
+import { freeze } from '../../src/lexicon/freeze.js';
+import { resolveRules } from '../../src/rules/TextRules.js';
+import { Tally } from '../../src/tally/Tally.js';
+import { tempFolder } from '../helpers/tempFolder.js';
+
+let tmp: Awaited<ReturnType<typeof tempFolder>>;
+beforeEach(async () => {
+  tmp = await tempFolder();
+});
+afterEach(async () => {
+  await tmp.remove();
+});
+
+const lexicon = freeze(Tally.fromTexts(['the ferry was late', 'lovely ferry'], resolveRules()));
+
+describe('saveLexicon and loadLexicon', () => {
+  it('save atomically and load with every check', async () => {
+    await saveLexicon(tmp.path('lex.json'), lexicon);
+    expect(await readdir(tmp.dir)).toEqual(['lex.json']);
+    const back = await loadLexicon(tmp.path('lex.json'), { expectFingerprint: lexicon.fingerprint });
+    expect(back.encoding).toEqual(lexicon.encoding);
+  });
+
+  it('refuse to overwrite unless forced', async () => {
+    await writeFile(tmp.path('lex.json'), 'keep me');
+    await expect(saveLexicon(tmp.path('lex.json'), lexicon)).rejects.toThrow(`${tmp.path('lex.json')} already exists; pass --force to overwrite it`);
+    expect(await readFile(tmp.path('lex.json'), 'utf8')).toBe('keep me');
+    await saveLexicon(tmp.path('lex.json'), lexicon, { force: true });
+    expect((await loadLexicon(tmp.path('lex.json'))).fingerprint).toBe(lexicon.fingerprint);
+  });
+
+  it.each([
+    ['a missing file', 'nope.json', 'no such file'],
+    ['a folder', '.', 'is a folder, not a lexicon file'],
+  ])('name the problem with %s', async (_what, name, why) => {
+    const path = name === '.' ? tmp.dir : tmp.path(name);
+    await expect(loadLexicon(path)).rejects.toThrow(`${path}: cannot read the lexicon (${why}); pass the path of a file written by lexlock build`);
+  });
+});
