@@ -18,6 +18,7 @@ export type LexlockErrorCode =
   | 'CSV_UNCLOSED_QUOTE'
   | 'CSV_FIELD_COUNT'
   | 'CSV_BAD_HEADER'
+  | 'CSV_BAD_QUOTE'
   | 'JSONL_NOT_JSON'
   | 'JSONL_NOT_OBJECT'
   | 'MISSING_FIELD'

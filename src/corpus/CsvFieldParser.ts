@@ -1,0 +1,124 @@
+import { parse, parseString, type CsvParserStream } from 'fast-csv';
+
+/** fast-csv refused record `index` of a batch given to {@link CsvFieldParser.split}; `message` is fast-csv's. */
+export class CsvFieldError extends Error {
+  override readonly name = 'CsvFieldError';
+  readonly index: number;
+  constructor(index: number, message: string) {
+    super(message);
+    this.index = index;
+  }
+}
+
+/**
+ * A first record put before every batch and dropped from the result: fast-csv removes a U+FEFF at the
+ * start of every piece of text it is given, which would eat one from a record that starts a batch.
+ */
+const LEAD = 'x';
+
+type Row = string[];
+
+/**
+ * Splits CSV/TSV records (decoded, one record each, without its line end) into fields with fast-csv,
+ * one stream for the whole file, one batch at a time: exactly one row comes back per record, in order,
+ * so each row keeps the line and byte offset its record was found at.
+ */
+export class CsvFieldParser {
+  readonly #delimiter: string;
+  readonly #blankFirstField: RegExp;
+  readonly #stream: CsvParserStream<Row, Row>;
+  #rows: Row[] = [];
+  #error: Error | null = null;
+  #settle: () => void = () => {};
+
+  constructor(delimiter: ',' | '\t') {
+    this.#delimiter = delimiter;
+    this.#blankFirstField = delimiter === ',' ? /^[^\S\r\n]+(?=,)/ : /^[^\S\r\n\t]+(?=\t)/;
+    this.#stream = parse<Row, Row>(fastCsvOptions(delimiter));
+    this.#stream.on('data', (row: Row) => {
+      this.#rows.push(row);
+      this.#settle();
+    });
+    this.#stream.on('error', (e: Error) => {
+      this.#error ??= e;
+      this.#settle();
+    });
+  }
+
+  /**
+   * The fields of each record. Throws {@link CsvFieldError} naming the record fast-csv refused (the
+   * stream is unusable afterwards).
+   */
+  async split(records: readonly string[]): Promise<Row[]> {
+    if (records.length === 0) return [];
+    let rows: Row[];
+    try {
+      rows = await this.#write(`${LEAD}\n${records.map((r) => this.#guard(r)).join('\n')}\n`);
+    } catch (e) {
+      throw await this.#blame(records, e);
+    }
+    if (rows.length !== records.length + 1) {
+      throw new Error(`lexlock: fast-csv gave ${rows.length - 1} rows for ${records.length} records; please report this with the file`);
+    }
+    return rows.slice(1);
+  }
+
+  /** Writes `text` and waits for all its rows. */
+  async #write(text: string): Promise<Row[]> {
+    if (this.#error !== null) throw this.#error;
+    this.#rows = [];
+    await new Promise<void>((resolve, reject) => {
+      let written = false;
+      this.#settle = () => {
+        if (this.#error !== null) reject(this.#error);
+        // Once fast-csv has taken the whole write and nothing waits in its output, every row is here.
+        else if (written && this.#stream.readableLength === 0) resolve();
+      };
+      this.#stream.write(text, (e) => {
+        if (e) this.#error ??= e;
+        written = true;
+        this.#settle();
+      });
+    });
+    const rows = this.#rows;
+    this.#rows = [];
+    return rows;
+  }
+
+  /**
+   * fast-csv turns a first field of white space only (`  ,b`) into an empty string; RFC 4180 §2 rule 4
+   * keeps spaces, so such a field is handed over quoted (it holds no quote, so the value is the same).
+   */
+  #guard(record: string): string {
+    const c = record.charCodeAt(0);
+    if (c > 0x20 && c < 0xa0) return record;
+    const blank = this.#blankFirstField.exec(record);
+    return blank === null ? record : `"${blank[0]}"${record.slice(blank[0].length)}`;
+  }
+
+  /** Ends the stream. */
+  close(): void {
+    this.#stream.destroy();
+  }
+
+  /** The record fast-csv refuses on its own, found by splitting the batch's records one by one. */
+  async #blame(records: readonly string[], cause: unknown): Promise<Error> {
+    const message = cause instanceof Error ? cause.message : String(cause);
+    for (let i = 0; i < records.length; i++) {
+      const refused = await new Promise<string | null>((resolve) => {
+        parseString<Row, Row>(`${LEAD}\n${this.#guard(records[i]!)}\n`, fastCsvOptions(this.#delimiter))
+          .on('error', (e: Error) => resolve(e.message))
+          .on('data', () => {})
+          .on('end', () => resolve(null));
+      });
+      if (refused !== null) return new CsvFieldError(i, refused);
+    }
+    // No record fails alone: name the first of the batch and say so.
+    return new CsvFieldError(0, `${message}, in this row or one of the next ${records.length - 1}`);
+  }
+}
+
+function fastCsvOptions(delimiter: string) {
+  // RFC 4180 quoting ("" inside quotes), no trimming, no header handling, every row kept.
+  return { delimiter, quote: '"', escape: '"', headers: false, ignoreEmpty: false, trim: false, ltrim: false, rtrim: false };
+}

@@ -1,0 +1,22 @@
+import type { BadTextPolicy } from './decodeText.js';
+import type { CorpusStats } from './CorpusStats.js';
+
+/** What every kind of corpus reader is given: the path, the options resolved, and the counters to keep. */
+export interface ReadContext {
+  /** The corpus path as the user gave it. */
+  readonly file: string;
+  /** Text field (csv/tsv/jsonl). */
+  readonly text: string;
+  /** Label field (csv/tsv/jsonl); undefined for no labels. */
+  readonly label: string | undefined;
+  readonly badText: BadTextPolicy;
+  /** Bytes per read. */
+  readonly chunkSize: number;
+  /** Counters, updated as the reader goes. */
+  readonly stats: CorpusStats;
+  /**
+   * Why the corpus gave no documents and what to do, for the `EMPTY_CORPUS` message; readers set it
+   * as they learn (e.g. `only a header row`).
+   */
+  empty: { reason: string; advice: string };
+}

@@ -1,0 +1,87 @@
+import { inputError, type Where } from '../LexlockError.js';
+import type { CorpusDocument } from './CorpusDocument.js';
+import type { ReadContext } from './ReadContext.js';
+import { quotedNames } from './quotedNames.js';
+import { readLineCorpus } from './readLineCorpus.js';
+
+/**
+ * A `.jsonl`/`.ndjson` corpus: one JSON object a line, the text in field `context.text` (a string),
+ * the label in `context.label` (a string; numbers and booleans are turned into strings). Lines of
+ * white space only are skipped.
+ */
+export function readJsonl(context: ReadContext): AsyncGenerator<CorpusDocument[], void, undefined> {
+  return readLineCorpus(context, {
+    blank: isBlank,
+    document: (json, where) => documentOf(json, where, context),
+    reason: 'the file has no JSON lines',
+    advice: 'put one JSON object on each line',
+  });
+}
+
+/** True for a line of JSON white space only (space, tab, CR). */
+function isBlank(bytes: Buffer): boolean {
+  for (let i = 0; i < bytes.length; i++) {
+    const b = bytes[i];
+    if (b !== 0x20 && b !== 0x09 && b !== 0x0d) return false;
+  }
+  return true;
+}
+
+function documentOf(json: string, where: Where, context: ReadContext): CorpusDocument {
+  let value: unknown;
+  try {
+    value = JSON.parse(json);
+  } catch (e) {
+    const reason = e instanceof Error ? e.message : String(e);
+    throw inputError('JSONL_NOT_JSON', where, `not JSON (${reason}); put one JSON object on each line`);
+  }
+  if (typeof value !== 'object' || value === null || Array.isArray(value)) {
+    throw inputError(
+      'JSONL_NOT_OBJECT',
+      where,
+      `${jsonKind(value)} where an object was expected; put one JSON object on each line, like {"${context.text}": "..."}`,
+    );
+  }
+  // JSON.parse makes every member an own data property, `__proto__` included, so Object.hasOwn and
+  // indexing see exactly the members of the line, whatever their names.
+  const record = value as Record<string, unknown>;
+  const text = member(record, context.text, where, 'text');
+  if (typeof text !== 'string') {
+    throw inputError(
+      'BAD_FIELD_TYPE',
+      { ...where, field: context.text },
+      `field ${JSON.stringify(context.text)} is ${jsonKind(text)}, not a string; store the text as a JSON string`,
+    );
+  }
+  if (context.label === undefined) return { text, where };
+  const raw = member(record, context.label, where, 'label');
+  if (raw === null) {
+    throw inputError(
+      'MISSING_FIELD',
+      { ...where, field: context.label },
+      `field ${JSON.stringify(context.label)} is null; give every line a label, or leave out --label`,
+    );
+  }
+  if (typeof raw === 'string') return { text, label: raw, where };
+  if (typeof raw === 'number' || typeof raw === 'boolean') return { text, label: String(raw), where };
+  throw inputError(
+    'BAD_FIELD_TYPE',
+    { ...where, field: context.label },
+    `field ${JSON.stringify(context.label)} is ${jsonKind(raw)}, not a string, number or boolean; store the label as a JSON string`,
+  );
+}
+
+function member(record: Record<string, unknown>, name: string, where: Where, role: 'text' | 'label'): unknown {
+  if (Object.hasOwn(record, name)) return record[name];
+  const names = Object.keys(record);
+  const has = names.length === 0 ? 'this line has no fields' : `this line has ${quotedNames(names)}`;
+  throw inputError('MISSING_FIELD', { ...where, field: name }, `no field ${JSON.stringify(name)}; ${has}; pass --${role} to name the ${role} field`);
+}
+
+/** `a JSON array`, `a JSON string`, ... for messages. */
+function jsonKind(value: unknown): string {
+  if (value === null) return 'JSON null';
+  if (Array.isArray(value)) return 'a JSON array';
+  if (typeof value === 'object') return 'a JSON object';
+  return `a JSON ${typeof value}`;
+}
