@@ -1,3 +1,5 @@
+import { mkdir } from 'node:fs/promises';
+import { dirname } from 'node:path';
 import { serializeLexicon } from '../artifact/serializeLexicon.js';
 import type { Lexicon } from '../lexicon/Lexicon.js';
 import { writeFileAtomic } from './atomicWrite.js';
@@ -11,9 +13,10 @@ export interface SaveLexiconOptions {
 
 /**
  * Writes a lexicon file atomically (temporary file in the same folder, fsync, rename): a crash or
- * Ctrl-C leaves the old file or the new one, never half of one.
+ * Ctrl-C leaves the old file or the new one, never half of one. Missing parent folders are created.
  */
 export async function saveLexicon(path: string, lexicon: Lexicon, options: SaveLexiconOptions = {}): Promise<void> {
   await assertWritable(path, options.force ?? false);
+  await mkdir(dirname(path), { recursive: true });
   await writeFileAtomic(path, serializeLexicon(lexicon));
 }

@@ -1,0 +1,62 @@
+import { isLexlockError } from './LexlockError.js';
+import { build, BUILD_HELP } from './commands/build.js';
+import { encode, ENCODE_HELP } from './commands/encode.js';
+import type { Io } from './commands/Io.js';
+import { verify, VERIFY_HELP } from './commands/verify.js';
+import { VERSION } from './version.js';
+
+/** Exit codes of the CLI. */
+export const EXIT = { ok: 0, badInput: 1, usage: 2, threshold: 3, interrupted: 130 } as const;
+
+const COMMANDS: Record<string, { run: (argv: readonly string[], io: Io) => Promise<number>; help: string }> = {
+  build: { run: build, help: BUILD_HELP },
+  encode: { run: encode, help: ENCODE_HELP },
+  verify: { run: verify, help: VERIFY_HELP },
+};
+
+/** `lexlock --help`. */
+export const MAIN_HELP = `lexlock ${VERSION}: one fingerprinted lexicon file for text -> ids, everywhere
+
+  lexlock build <corpus> -o <lexicon.json>        count a corpus, write a lexicon
+  lexlock encode <corpus> --lexicon <file> -o <out>  ids as .jsonl or a folder of .npy files
+  lexlock verify <lexicon.json>                   check schema, fingerprint and canaries
+
+Corpora: .csv, .tsv, .jsonl/.ndjson, .txt (a document a line), or a folder (a document a file).
+Run lexlock <command> --help for a command's flags.
+`;
+
+/**
+ * Runs the CLI on `argv` (without the node and script names) and returns the exit code:
+ * 0 ok, 1 bad input, 2 bad usage, 3 audit threshold crossed. Errors are printed as one line.
+ */
+export async function run(argv: readonly string[], io: Io): Promise<number> {
+  const [name, ...rest] = argv;
+  if (name === undefined || name === '--help' || name === '-h' || name === 'help') {
+    io.stdout.write(MAIN_HELP);
+    return name === undefined ? EXIT.usage : EXIT.ok;
+  }
+  if (name === '--version' || name === '-V') {
+    io.stdout.write(`${VERSION}\n`);
+    return EXIT.ok;
+  }
+  const command = Object.hasOwn(COMMANDS, name) ? COMMANDS[name] : undefined;
+  if (command === undefined) {
+    io.stderr.write(`lexlock: unknown command "${name}"; the commands are ${Object.keys(COMMANDS).join(', ')} (lexlock --help)\n`);
+    return EXIT.usage;
+  }
+  if (rest.includes('--help') || rest.includes('-h')) {
+    io.stdout.write(command.help);
+    return EXIT.ok;
+  }
+  try {
+    return await command.run(rest, io);
+  } catch (e) {
+    if (isLexlockError(e)) {
+      io.stderr.write(`lexlock ${name}: ${e.message}\n`);
+      return e.isUsage ? EXIT.usage : EXIT.badInput;
+    }
+    const message = e instanceof Error ? e.message : String(e);
+    io.stderr.write(`lexlock ${name}: unexpected error: ${message}\nThis is a bug in lexlock; please report it with the command you ran.\n`);
+    return EXIT.badInput;
+  }
+}

@@ -1,0 +1,41 @@
+import type { Lexicon } from '../lexicon/Lexicon.js';
+import { count, pairs, percent } from './format.js';
+
+/** The summary lines build and verify print about a lexicon. */
+export function describeLexicon(lexicon: Lexicon): Array<[string, string]> {
+  const { encoding, fit } = lexicon;
+  const r = encoding.rules;
+  const rows: Array<[string, string]> = [
+    ['fingerprint', lexicon.fingerprint],
+    [
+      'rules',
+      `${r.level} level, ${r.unicode}, case ${r.case}, ${r.tokenizer}` +
+        (r.drop.length > 0 ? `, drop ${r.drop.join(',')}` : '') +
+        (r.collapse.length > 0 ? `, collapse ${r.collapse.join(',')}` : ''),
+    ],
+    [
+      'vocabulary',
+      `${count(encoding.tokens.length - encoding.layout.reserved)} tokens` +
+        (encoding.layout.reserved > 0 ? ` + ${encoding.layout.reserved} reserved` : '') +
+        `; padding 0, OOV ${lexicon.oovId}; input dimension ${count(lexicon.size)}`,
+    ],
+    ['shape', encoding.shape === null ? 'none (variable length)' : `length ${encoding.shape.length}, pad ${encoding.shape.pad}, cut ${encoding.shape.cut}`],
+    ['labels', encoding.labels === null ? 'none' : `${encoding.labels.length}: ${encoding.labels.slice(0, 12).join(', ')}${encoding.labels.length > 12 ? ', …' : ''}`],
+  ];
+  if (fit !== null) {
+    rows.push(['corpus', `${count(fit.documents)} documents, ${count(fit.tokens)} tokens, ${count(fit.types)} distinct`]);
+    rows.push(['OOV on corpus', `${percent(fit.oovRate)} of tokens (${count(fit.oovTokens)})`]);
+    const l = fit.length;
+    rows.push(['tokens/document', `min ${l.min}, p50 ${l.p50}, p90 ${l.p90}, p95 ${l.p95}, p99 ${l.p99}, max ${l.max}`]);
+    if (fit.truncation !== null) {
+      const t = fit.truncation;
+      rows.push(['cut at length', `${count(t.truncatedDocuments)} documents (${percent(fit.documents === 0 ? 0 : t.truncatedDocuments / fit.documents)}), ${count(t.droppedTokens)} tokens dropped`]);
+    }
+  }
+  return rows;
+}
+
+/** {@link describeLexicon} as aligned text. */
+export function describeLexiconText(lexicon: Lexicon): string {
+  return pairs(describeLexicon(lexicon));
+}

@@ -1,0 +1,15 @@
+/** A whole number with thousands separators: 12,345. */
+export function count(n: number): string {
+  return n.toLocaleString('en-US');
+}
+
+/** A share as a percentage with two decimals: 3.25 %. */
+export function percent(share: number): string {
+  return `${(share * 100).toFixed(2)} %`;
+}
+
+/** Lines of label/value pairs with the values aligned. */
+export function pairs(rows: ReadonlyArray<readonly [string, string]>): string {
+  const width = Math.max(...rows.map(([k]) => k.length));
+  return rows.map(([k, v]) => `${k.padEnd(width)}  ${v}\n`).join('');
+}

@@ -1,0 +1,79 @@
+import { resolveRules, TOKEN_TYPES, type TextRules } from '../rules/TextRules.js';
+import type { Shape } from '../lexicon/Shape.js';
+import { LexlockError } from '../LexlockError.js';
+import { choiceFlag, listFlag, valueOf, wholeNumberFlag, type FlagSpec, type ParsedArgs } from './parseArgs.js';
+
+/** Flags every command that reads a corpus takes. */
+export const CORPUS_FLAGS: Record<string, FlagSpec> = {
+  text: { kind: 'value' },
+  label: { kind: 'value' },
+  'bad-text': { kind: 'value' },
+  quiet: { kind: 'switch', short: 'q' },
+};
+
+/** Flags that fix the text rules. */
+export const RULE_FLAGS: Record<string, FlagSpec> = {
+  level: { kind: 'value' },
+  case: { kind: 'value' },
+  unicode: { kind: 'value' },
+  drop: { kind: 'value', repeat: true },
+  collapse: { kind: 'value', repeat: true },
+};
+
+/** Flags that fix a shape. */
+export const SHAPE_FLAGS: Record<string, FlagSpec> = {
+  length: { kind: 'value' },
+  pad: { kind: 'value' },
+  cut: { kind: 'value' },
+};
+
+/** The corpus-reading options from the flags (text/label fields fall back to `defaults`). */
+export function corpusOptions(args: ParsedArgs, defaults: { text?: string | undefined; label?: string | undefined } = {}) {
+  const badText = choiceFlag(args, 'bad-text', ['fail', 'replace', 'skip'] as const) ?? 'fail';
+  const text = valueOf(args, 'text') ?? defaults.text;
+  const label = valueOf(args, 'label') ?? defaults.label;
+  return {
+    badText,
+    ...(text === undefined ? {} : { text }),
+    ...(label === undefined ? {} : { label }),
+  };
+}
+
+function typesFlag(args: ParsedArgs, name: string): Array<(typeof TOKEN_TYPES)[number]> {
+  const list = listFlag(args, name);
+  for (const t of list) {
+    if (!(TOKEN_TYPES as readonly string[]).includes(t)) {
+      throw new LexlockError('USAGE_BAD_VALUE', `--${name}: "${t}" is not a token type; use ${TOKEN_TYPES.join(', ')}`, { field: `--${name}` });
+    }
+  }
+  return list as Array<(typeof TOKEN_TYPES)[number]>;
+}
+
+/** The text rules from the flags. */
+export function rulesFromFlags(args: ParsedArgs): TextRules {
+  const level = choiceFlag(args, 'level', ['word', 'char'] as const);
+  const letterCase = choiceFlag(args, 'case', ['lower', 'keep'] as const);
+  const unicode = choiceFlag(args, 'unicode', ['NFKC', 'NFC', 'none'] as const);
+  return resolveRules({
+    ...(level === undefined ? {} : { level }),
+    ...(letterCase === undefined ? {} : { case: letterCase }),
+    ...(unicode === undefined ? {} : { unicode }),
+    drop: typesFlag(args, 'drop'),
+    collapse: typesFlag(args, 'collapse'),
+  });
+}
+
+/** The shape from --length/--pad/--cut (pad and cut default to post), or null without --length. */
+export function shapeFromFlags(args: ParsedArgs): Shape | null {
+  const length = wholeNumberFlag(args, 'length', 1);
+  const pad = choiceFlag(args, 'pad', ['pre', 'post'] as const);
+  const cut = choiceFlag(args, 'cut', ['pre', 'post'] as const);
+  if (length === undefined) {
+    if (pad !== undefined || cut !== undefined) {
+      const flag = pad !== undefined ? '--pad' : '--cut';
+      throw new LexlockError('USAGE_MISSING', `${flag} needs --length: padding and cutting apply to a fixed length`, { field: flag });
+    }
+    return null;
+  }
+  return { length, pad: pad ?? 'post', cut: cut ?? 'post' };
+}

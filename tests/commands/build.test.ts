@@ -1,0 +1,96 @@
+import { readFile, writeFile } from 'node:fs/promises';
+import { afterEach, beforeEach, describe, expect, it } from 'vitest';
+import { parseLexicon } from '../../src/artifact/parseLexicon.js';
+import { cli, tempFolder } from '../helpers/cli.js';
+
+let tmp: Awaited<ReturnType<typeof tempFolder>>;
+beforeEach(async () => {
+  tmp = await tempFolder();
+});
+afterEach(async () => {
+  await tmp.remove();
+});
+
+const CSV = 'text,topic\n"The ferry was late, again",delays\nLovely crossing,praise\nLate late late,delays\n';
+
+describe('lexlock build', () => {
+  it('builds a lexicon from a labelled CSV (figures hand-counted)', async () => {
+    await writeFile(tmp.path('m.csv'), CSV);
+    const r = await cli('build', tmp.path('m.csv'), '-o', tmp.path('lex.json'), '--label', 'topic', '--cap', '3', '--length', '4', '--pad', 'pre');
+    expect(r.stderr).toBe('');
+    expect(r.code).toBe(0);
+    const lex = parseLexicon(await readFile(tmp.path('lex.json'), 'utf8'));
+    // late 4, then ',' 'again' 'crossing' 'ferry' 'lovely' 'the' 'was' once each: ',' < 'again' < … in code-unit order.
+    expect(lex.encoding.tokens).toEqual(['late', ',', 'again']);
+    expect(lex.labels).toEqual(['delays', 'praise']);
+    expect(lex.shape).toEqual({ length: 4, pad: 'pre', cut: 'post' });
+    expect(lex.fit?.documents).toBe(3);
+    expect(lex.fit?.labelField).toBe('topic');
+    expect(r.stdout).toContain(`fingerprint      ${lex.fingerprint}`);
+    expect(r.stdout).toContain('vocabulary       3 tokens; padding 0, OOV 1; input dimension 5');
+  });
+
+  it('refuses to overwrite without --force, and overwrites with it', async () => {
+    await writeFile(tmp.path('m.csv'), CSV);
+    await writeFile(tmp.path('lex.json'), 'old');
+    const r = await cli('build', tmp.path('m.csv'), '-o', tmp.path('lex.json'));
+    expect(r.code).toBe(1);
+    expect(r.stderr).toBe(`lexlock build: ${tmp.path('lex.json')} already exists; pass --force to overwrite it\n`);
+    expect(await readFile(tmp.path('lex.json'), 'utf8')).toBe('old');
+    expect((await cli('build', tmp.path('m.csv'), '-o', tmp.path('lex.json'), '--force')).code).toBe(0);
+  });
+
+  it.each([
+    [['--cap', '-3'], 'lexlock build: --cap: "-3" is not a whole number of at least 1\n'],
+    [['--pad', 'middle', '--length', '5'], 'lexlock build: --pad: "middle" is not one of pre, post\n'],
+    [['--frobnicate'], 'lexlock build: build: unknown flag --frobnicate; see lexlock build --help\n'],
+    [['--oov', 'middle'], 'lexlock build: --oov: "middle" is not one of first, last\n'],
+    [['--cut', 'pre'], 'lexlock build: --cut needs --length: padding and cutting apply to a fixed length\n'],
+    [['--level', 'sentence'], 'lexlock build: --level: "sentence" is not one of word, char\n'],
+    [['--drop', 'nouns'], 'lexlock build: --drop: "nouns" is not a token type; use alien, currency, email, emoji, emoticon, hashtag, mention, number, ordinal, punctuation, quoted_phrase, symbol, time, url, word\n'],
+    [['--cap'], 'lexlock build: --cap needs a value\n'],
+  ])('exits 2 naming the flag for %j', async (flags, message) => {
+    await writeFile(tmp.path('m.csv'), CSV);
+    const r = await cli('build', tmp.path('m.csv'), '-o', tmp.path('lex.json'), ...flags);
+    expect(r.stderr).toBe(message);
+    expect(r.code).toBe(2);
+  });
+
+  it('exits 2 without an output', async () => {
+    const r = await cli('build', 'x.csv');
+    expect([r.code, r.stderr]).toEqual([2, 'lexlock build: build: -o/--output is required: where should the lexicon go?\n']);
+  });
+
+  it('exits 1 on an empty corpus and writes nothing', async () => {
+    await writeFile(tmp.path('e.csv'), 'text\n');
+    const r = await cli('build', tmp.path('e.csv'), '-o', tmp.path('lex.json'));
+    expect(r.code).toBe(1);
+    expect(r.stderr).toMatch(/^lexlock build: .*e\.csv: no documents/);
+    await expect(readFile(tmp.path('lex.json'))).rejects.toThrow(/ENOENT/);
+  });
+
+  it('exits 1 naming the line of an unclosed quote', async () => {
+    await writeFile(tmp.path('q.csv'), 'text\nfine\nalso fine\n"never closed\nmore\n');
+    const r = await cli('build', tmp.path('q.csv'), '-o', tmp.path('lex.json'));
+    expect(r.code).toBe(1);
+    expect(r.stderr).toContain(`${tmp.path('q.csv')} line 4: quote opened here is never closed`);
+    expect(r.stderr.split('\n').length).toBe(2);
+  });
+
+  it('counts and encodes tokens that are JavaScript object keys, and __proto__ as a reserved token', async () => {
+    await writeFile(tmp.path('k.txt'), 'constructor tostring valueof\nconstructor hasownproperty\n');
+    const r = await cli('build', tmp.path('k.txt'), '-o', tmp.path('lex.json'), '--reserve', '__proto__');
+    expect(r.code).toBe(0);
+    const lex = parseLexicon(await readFile(tmp.path('lex.json'), 'utf8'));
+    expect(lex.encoding.tokens).toEqual(['__proto__', 'constructor', 'hasownproperty', 'tostring', 'valueof']);
+    expect(Array.from(lex.encode('valueOf __proto__ constructor'))).toEqual([6, 1, 1, 1, 1, 1, 3]);
+    expect(lex.idOf('__proto__')).toBe(2);
+  });
+
+  it('builds at the character level', async () => {
+    await writeFile(tmp.path('c.txt'), 'ab a\nb😀\n');
+    expect((await cli('build', tmp.path('c.txt'), '-o', tmp.path('lex.json'), '--level', 'char')).code).toBe(0);
+    const lex = parseLexicon(await readFile(tmp.path('lex.json'), 'utf8'));
+    expect(lex.encoding.tokens).toEqual(['a', 'b', '😀']);
+  });
+});

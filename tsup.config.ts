@@ -1,0 +1,18 @@
+import { defineConfig } from 'tsup';
+
+export default defineConfig([
+  {
+    entry: { index: 'src/index.ts', node: 'src/node.ts' },
+    format: ['esm', 'cjs'],
+    dts: true,
+    sourcemap: true,
+    clean: true,
+    target: 'node20',
+  },
+  {
+    entry: { bin: 'src/bin.ts' },
+    format: ['esm'],
+    sourcemap: true,
+    target: 'node20',
+  },
+]);
