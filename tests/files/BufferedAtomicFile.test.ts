@@ -1,24 +1,12 @@
-import { mkdir, mkdtemp, readdir, readFile, rm, writeFile } from 'node:fs/promises';
-import { tmpdir } from 'node:os';
+import { readdir, readFile, writeFile } from 'node:fs/promises';
 import { join } from 'node:path';
 import fc from 'fast-check';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
+import { caseFolders } from '../helpers/caseFolders.js';
 import { BufferedAtomicFile } from '../../src/files/BufferedAtomicFile.js';
 
-let root: string;
-let n = 0;
-async function folder(): Promise<string> {
-  n += 1;
-  const dir = join(root, `case-${n}`);
-  await mkdir(dir);
-  return dir;
-}
-beforeAll(async () => {
-  root = await mkdtemp(join(tmpdir(), 'lexlock-buffered-'));
-});
-afterAll(async () => {
-  await rm(root, { recursive: true, force: true });
-});
+/** A fresh empty folder per test. */
+const folder = caseFolders('buffered');
 
 type Piece = { kind: 'bytes'; bytes: Uint8Array } | { kind: 'text'; text: string };
 const piece: fc.Arbitrary<Piece> = fc.oneof(

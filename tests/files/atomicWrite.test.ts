@@ -1,6 +1,8 @@
 import { chmod, mkdir, mkdtemp, readdir, readFile, rm, writeFile } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
-import { join } from 'node:path';
+import { spawnSync } from 'node:child_process';
+import { dirname, join } from 'node:path';
+import { fileURLToPath, pathToFileURL } from 'node:url';
 import fc from 'fast-check';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { isLexlockError, type LexlockError } from '../../src/LexlockError.js';
@@ -89,15 +91,26 @@ describe('writeFileAtomic', () => {
     expect(await readdir(path)).toEqual(['inside']);
   });
 
-  // A read-only folder stops everyone but root (POSIX permissions); root writes anyway, so the check is skipped there.
-  it.skipIf(process.getuid?.() === 0)('fails with IO in a read-only folder and leaves nothing behind', async () => {
+  // A read-only folder stops everyone but root (POSIX permissions). Run as root (CI is), the write is
+  // made by a child process that drops to the unprivileged user 65534 ("nobody") before trying.
+  it('fails with IO in a read-only folder and leaves nothing behind', async () => {
     const dir = await folder();
     const path = join(dir, 'lex.json');
     await writeFile(path, 'old');
     await chmod(dir, 0o555);
     try {
-      const error = await caught(() => writeFileAtomic(path, 'new'));
-      expect(error.message).toBe(`${path}: could not write the file (EACCES: permission denied, while creating a temporary file beside it)${SUFFIX}`);
+      let message: string;
+      if (process.getuid?.() !== 0) {
+        message = (await caught(() => writeFileAtomic(path, 'new'))).message;
+      } else {
+        for (let d = dir; d !== dirname(d); d = dirname(d)) if (d.startsWith(tmpdir()) && d !== tmpdir()) await chmod(d, d === dir ? 0o555 : 0o755);
+        const module = pathToFileURL(join(fileURLToPath(import.meta.url), '../../../src/files/atomicWrite.ts')).href;
+        const script = `process.setgid(65534); process.setuid(65534); const { writeFileAtomic } = await import(${JSON.stringify(module)}); try { await writeFileAtomic(${JSON.stringify(path)}, 'new'); } catch (e) { process.stdout.write(e.message); }`;
+        const child = spawnSync(process.execPath, ['--import', 'tsx', '--input-type=module', '-e', script], { encoding: 'utf8', cwd: join(fileURLToPath(import.meta.url), '../../..') });
+        expect(child.stderr).toBe('');
+        message = child.stdout;
+      }
+      expect(message).toBe(`${path}: could not write the file (EACCES: permission denied, while creating a temporary file beside it)${SUFFIX}`);
       expect(await readdir(dir)).toEqual(['lex.json']);
       expect(await readFile(path, 'utf8')).toBe('old');
     } finally {

@@ -1,27 +1,15 @@
-import { mkdir, mkdtemp, readdir, readFile, rm, writeFile } from 'node:fs/promises';
-import { tmpdir } from 'node:os';
+import { readdir, readFile, writeFile } from 'node:fs/promises';
 import { join } from 'node:path';
 import fc from 'fast-check';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
+import { caseFolders } from '../helpers/caseFolders.js';
 import { JsonlWriter } from '../../src/output/JsonlWriter.js';
 
 // JSON Lines (jsonlines.org, from memory): UTF-8, each line a valid JSON value, lines separated by
 // "\n", a "\n" after the last line allowed. JSON.parse (ECMA-262 / RFC 8259) is the reference reader.
 
-let root: string;
-let n = 0;
-async function folder(): Promise<string> {
-  n += 1;
-  const dir = join(root, `case-${n}`);
-  await mkdir(dir);
-  return dir;
-}
-beforeAll(async () => {
-  root = await mkdtemp(join(tmpdir(), 'lexlock-jsonl-'));
-});
-afterAll(async () => {
-  await rm(root, { recursive: true, force: true });
-});
+/** A fresh empty folder per test. */
+const folder = caseFolders('jsonl');
 
 /** Lines of a JSON Lines file: decoded strictly as UTF-8 (WHATWG Encoding, fatal), split on "\n". */
 async function linesOf(path: string): Promise<string[]> {

@@ -1,29 +1,17 @@
-import { mkdir, mkdtemp, readdir, readFile, rm, writeFile } from 'node:fs/promises';
-import { tmpdir } from 'node:os';
+import { readdir, readFile, writeFile } from 'node:fs/promises';
 import { join } from 'node:path';
 import fc from 'fast-check';
 import { parse } from 'npyjs';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
+import { caseFolders } from '../helpers/caseFolders.js';
 import { npyBytes } from '../../src/output/npyBytes.js';
 import { NpyWriter } from '../../src/output/NpyWriter.js';
 
 // Outside checks: npyjs (a general-purpose NPY reader) reads the files back; the header layout is the
 // NumPy NPY 1.0 specification (numpy.lib.format docs / NEP 1, from memory), see npyHeader.test.ts.
 
-let root: string;
-let n = 0;
-async function folder(): Promise<string> {
-  n += 1;
-  const dir = join(root, `case-${n}`);
-  await mkdir(dir);
-  return dir;
-}
-beforeAll(async () => {
-  root = await mkdtemp(join(tmpdir(), 'lexlock-npy-'));
-});
-afterAll(async () => {
-  await rm(root, { recursive: true, force: true });
-});
+/** A fresh empty folder per test. */
+const folder = caseFolders('npy');
 
 async function readNpy(path: string): Promise<{ bytes: Uint8Array; shape: number[]; dtype: string; fortranOrder: boolean; data: number[] }> {
   const file = await readFile(path);
