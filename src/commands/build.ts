@@ -51,7 +51,7 @@ export async function build(argv: readonly string[], io: Io): Promise<number> {
   });
   const [corpus] = positionals('build', args, ['corpus']) as [string];
   const output = valueOf(args, 'output');
-  if (output === undefined) throw new LexlockError('USAGE_MISSING', 'build: -o/--output is required: where should the lexicon go?', { field: '--output' });
+  if (output === undefined) throw new LexlockError('USAGE_MISSING', '-o/--output is required: where should the lexicon go?', { field: '--output' });
   const cap = wholeNumberFlag(args, 'cap', 1) ?? DEFAULT_CAP;
   const minCount = wholeNumberFlag(args, 'min-count', 1) ?? 1;
   const oovFlag = valueOf(args, 'oov');

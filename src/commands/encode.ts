@@ -113,9 +113,9 @@ export async function encode(argv: readonly string[], io: Io): Promise<number> {
   });
   const [corpus] = positionals('encode', args, ['corpus']) as [string];
   const lexiconPath = valueOf(args, 'lexicon');
-  if (lexiconPath === undefined) throw new LexlockError('USAGE_MISSING', 'encode: --lexicon is required: which lexicon should encode the corpus?', { field: '--lexicon' });
+  if (lexiconPath === undefined) throw new LexlockError('USAGE_MISSING', '--lexicon is required: which lexicon should encode the corpus?', { field: '--lexicon' });
   const output = valueOf(args, 'output');
-  if (output === undefined) throw new LexlockError('USAGE_MISSING', 'encode: -o/--output is required: a .jsonl file or a folder for .npy files', { field: '--output' });
+  if (output === undefined) throw new LexlockError('USAGE_MISSING', '-o/--output is required: a .jsonl file or a folder for .npy files', { field: '--output' });
   const flagShape = shapeFromFlags(args);
   const force = args.switches.has('force');
   const lexicon = await loadLexicon(lexiconPath);
@@ -132,7 +132,7 @@ export async function encode(argv: readonly string[], io: Io): Promise<number> {
   if (!jsonl && shape === null) {
     throw new LexlockError(
       'USAGE_MISSING',
-      `encode: .npy output needs a fixed length and ${lexiconPath} has no shape; pass --length L (or write .jsonl for variable-length rows)`,
+      `.npy output needs a fixed length and ${lexiconPath} has no shape; pass --length L (or write .jsonl for variable-length rows)`,
       { field: '--length' },
     );
   }

@@ -46,14 +46,14 @@ export function parseArgs(command: string, argv: readonly string[], flags: Reado
     } else {
       const long = byShort.get(arg.slice(1, 2));
       if (long === undefined || (arg.length > 2 && flags[long]?.kind === 'switch')) {
-        throw new LexlockError('USAGE_UNKNOWN_FLAG', `${command}: unknown flag ${arg}; see lexlock ${command} --help`, { field: arg });
+        throw new LexlockError('USAGE_UNKNOWN_FLAG', `unknown flag ${arg}; see lexlock ${command} --help`, { field: arg });
       }
       name = long;
       inline = arg.length > 2 ? arg.slice(2) : undefined;
     }
     const spec = Object.hasOwn(flags, name) ? flags[name] : undefined;
     if (spec === undefined) {
-      throw new LexlockError('USAGE_UNKNOWN_FLAG', `${command}: unknown flag --${name}; see lexlock ${command} --help`, { field: `--${name}` });
+      throw new LexlockError('USAGE_UNKNOWN_FLAG', `unknown flag --${name}; see lexlock ${command} --help`, { field: `--${name}` });
     }
     if (spec.kind === 'switch') {
       if (inline !== undefined) {
@@ -115,7 +115,7 @@ export function positionals(command: string, args: ParsedArgs, names: readonly s
   if (args.positionals.length !== names.length) {
     const want = names.map((n) => `<${n}>`).join(' ');
     const got = args.positionals.length === 0 ? 'none' : args.positionals.map((p) => `"${p}"`).join(' ');
-    throw new LexlockError('USAGE_MISSING', `${command}: expected ${want}, got ${got}; see lexlock ${command} --help`, {});
+    throw new LexlockError('USAGE_MISSING', `expected ${want}, got ${got}; see lexlock ${command} --help`, {});
   }
   return [...args.positionals];
 }

@@ -12,7 +12,8 @@ export const PADDING_ID = 0;
 /**
  * Fixed-shape ids for many documents: `ids` is row-major (`rows` x `length`), ready to hand to a
  * tensor constructor as is; `lengths[r]` is how many ids of row r are tokens (the rest is padding);
- * `labels[r]` is row r's label id (-1 for none) when the input had labels.
+ * `labels[r]` is row r's label id when the input had labels: -1 for a row without a label or with one
+ * the lexicon does not know (as `lexlock encode` does; check with `labelId` to refuse those instead).
  */
 export interface Batch {
   ids: Int32Array;
@@ -173,7 +174,7 @@ export class Lexicon {
       rowsIds.push(this.idsOf(this.tokenize(text)));
       const label = typeof item === 'string' ? undefined : item.label;
       if (label !== undefined) labelled = true;
-      labels.push(label === undefined ? -1 : this.labelId(label));
+      labels.push(label === undefined ? -1 : (this.labelIds.get(label) ?? -1));
     }
     const given = options.shape === undefined ? this.encoding.shape : options.shape;
     let longest = 1;

@@ -63,7 +63,8 @@ export function freeze(tally: Tally, options: FreezeOptions = {}): Lexicon {
   }
   const shape = options.shape ? checkShape({ ...options.shape }) : null;
 
-  const ranked = rankTokens(tally.counts, minCount).filter(([t]) => !reservedSet.has(t));
+  const allRanked = rankTokens(tally.counts, 1);
+  const ranked = allRanked.filter(([t, n]) => n >= minCount && !reservedSet.has(t));
   const kept = cap === null ? ranked : ranked.slice(0, cap);
   const withLabels = options.labels ?? true;
   const labels = withLabels && tally.labels.size > 0 ? [...tally.labels.keys()].sort() : null;
@@ -81,7 +82,6 @@ export function freeze(tally: Tally, options: FreezeOptions = {}): Lexicon {
   for (const r of reserved) inVocabulary += tally.counts.get(r) ?? 0;
   const oovTokens = tally.tokens - inVocabulary;
 
-  const allRanked = rankTokens(tally.counts, 1);
   const caps = new Set(COVERAGE_CAPS.filter((c) => c < allRanked.length));
   if (cap !== null) caps.add(Math.min(cap, allRanked.length));
   caps.add(allRanked.length);

@@ -43,7 +43,7 @@ describe('lexlock build', () => {
   it.each([
     [['--cap', '-3'], 'lexlock build: --cap: "-3" is not a whole number of at least 1\n'],
     [['--pad', 'middle', '--length', '5'], 'lexlock build: --pad: "middle" is not one of pre, post\n'],
-    [['--frobnicate'], 'lexlock build: build: unknown flag --frobnicate; see lexlock build --help\n'],
+    [['--frobnicate'], 'lexlock build: unknown flag --frobnicate; see lexlock build --help\n'],
     [['--oov', 'middle'], 'lexlock build: --oov: "middle" is not one of first, last\n'],
     [['--cut', 'pre'], 'lexlock build: --cut needs --length: padding and cutting apply to a fixed length\n'],
     [['--level', 'sentence'], 'lexlock build: --level: "sentence" is not one of word, char\n'],
@@ -58,7 +58,7 @@ describe('lexlock build', () => {
 
   it('exits 2 without an output', async () => {
     const r = await cli('build', 'x.csv');
-    expect([r.code, r.stderr]).toEqual([2, 'lexlock build: build: -o/--output is required: where should the lexicon go?\n']);
+    expect([r.code, r.stderr]).toEqual([2, 'lexlock build: -o/--output is required: where should the lexicon go?\n']);
   });
 
   it('exits 1 on an empty corpus and writes nothing', async () => {

@@ -78,7 +78,7 @@ describe('lexlock encode', () => {
     await cli('build', tmp.path('m.csv'), '-o', tmp.path('free.json'));
     const r = await cli('encode', tmp.path('m.csv'), '--lexicon', tmp.path('free.json'), '-o', tmp.path('out'));
     expect(r.code).toBe(2);
-    expect(r.stderr).toBe(`lexlock encode: encode: .npy output needs a fixed length and ${tmp.path('free.json')} has no shape; pass --length L (or write .jsonl for variable-length rows)\n`);
+    expect(r.stderr).toBe(`lexlock encode: .npy output needs a fixed length and ${tmp.path('free.json')} has no shape; pass --length L (or write .jsonl for variable-length rows)\n`);
   });
 
   it('exits 1 naming the place of invalid UTF-8, and replaces or skips on request', async () => {

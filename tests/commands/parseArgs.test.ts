@@ -19,12 +19,12 @@ describe('parseArgs', () => {
   });
 
   it.each([
-    [['--nope'], 'build: unknown flag --nope; see lexlock build --help'],
-    [['-z'], 'build: unknown flag -z; see lexlock build --help'],
+    [['--nope'], 'unknown flag --nope; see lexlock build --help'],
+    [['-z'], 'unknown flag -z; see lexlock build --help'],
     [['--output'], '--output needs a value'],
     [['--force=yes'], '--force takes no value (got "yes")'],
     [['--cap', '1', '--cap', '2'], '--cap is given twice; give it once'],
-    [['--constructor'], 'build: unknown flag --constructor; see lexlock build --help'],
+    [['--constructor'], 'unknown flag --constructor; see lexlock build --help'],
   ])('refuses %j', (argv, message) => {
     expect(() => parseArgs('build', argv, flags)).toThrow(message);
   });

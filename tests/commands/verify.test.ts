@@ -48,7 +48,7 @@ describe('lexlock verify', () => {
     const missing = await cli('verify', tmp.path('nope.json'));
     expect([missing.code, missing.stderr]).toEqual([1, `lexlock verify: ${tmp.path('nope.json')}: cannot read the lexicon (no such file); pass the path of a file written by lexlock build\n`]);
     const none = await cli('verify');
-    expect([none.code, none.stderr]).toEqual([2, 'lexlock verify: verify: expected <lexicon.json>, got none; see lexlock verify --help\n']);
+    expect([none.code, none.stderr]).toEqual([2, 'lexlock verify: expected <lexicon.json>, got none; see lexlock verify --help\n']);
   });
 });
 

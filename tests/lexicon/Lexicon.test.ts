@@ -37,14 +37,14 @@ describe('Lexicon', () => {
   });
 
   it('encodes many texts into one row-major batch with lengths and label ids', () => {
-    const batch = lex.encodeMany([{ text: 'late ferry', label: 'praise' }, { text: 'the the the the the' }, 'again'], {
+    const batch = lex.encodeMany([{ text: 'late ferry', label: 'praise' }, { text: 'the the the the the' }, { text: 'again', label: 'refunds' }], {
       shape: { length: 4, pad: 'post', cut: 'post' },
     });
     expect(batch.rows).toBe(3);
     expect(batch.length).toBe(4);
     expect(Array.from(batch.ids)).toEqual([2, 3, 0, 0, 4, 4, 4, 4, 6, 0, 0, 0]);
     expect(Array.from(batch.lengths)).toEqual([2, 4, 1]);
-    expect(Array.from(batch.labels!)).toEqual([1, -1, -1]);
+    expect(Array.from(batch.labels!)).toEqual([1, -1, -1]); // no label, and a label the lexicon lacks: -1
     expect(batch.ids.buffer.byteLength).toBe(3 * 4 * 4);
   });
 
