@@ -13,10 +13,12 @@ const lex = freeze(Tally.fromTexts([{ text: 'the ferry was late', label: 'delays
   snippets: ['the ferry was late'],
 });
 const text = serializeLexicon(lex);
-const doc = () => JSON.parse(text) as Record<string, any>; // eslint-disable-line -- test documents are edited freely
+// `any` because these tests edit parsed lexicon documents freely, member by member, to make them wrong.
+type Doc = Record<string, any>;
+const doc = () => JSON.parse(text) as Doc;
 
 /** Re-signs an edited document so only the intended defect remains. */
-function resigned(d: Record<string, any>): Record<string, any> {
+function resigned(d: Doc): Doc {
   d.fingerprint = fingerprintOf(d.encoding);
   return d;
 }
@@ -40,12 +42,12 @@ describe('parseLexicon', () => {
     expect(Array.from(back.encode('the ferry was very late'))).toEqual(Array.from(lex.encode('the ferry was very late')));
   });
 
-  const sameTokensElsewhere = (): Record<string, any> => {
+  const sameTokensElsewhere = (): Doc => {
     const d = doc();
     d.encoding.tokens[1] = d.encoding.tokens[0];
     return resigned(d);
   };
-  const otherCanary = (): Record<string, any> => {
+  const otherCanary = (): Doc => {
     const d = doc();
     d.canaries[2].tokens = ['changed'];
     return d;
@@ -127,7 +129,7 @@ describe('parseLexicon', () => {
 });
 
 describe('schema messages name the member', () => {
-  it.each<[(d: Record<string, any>) => void, string]>([
+  it.each<[(d: Doc) => void, string]>([
     [(d) => (d.encoding.rules.level = 'sentence'), 'encoding.rules.level: expected "word" or "char", got "sentence"'],
     [(d) => (d.encoding.extra = 1), 'encoding: unknown member "extra"'],
     [(d) => (d.encoding.layout.reserved = -1), 'encoding.layout.reserved: -1 is below the minimum 0'],

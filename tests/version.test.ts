@@ -1,0 +1,10 @@
+import { readFile } from 'node:fs/promises';
+import { describe, expect, it } from 'vitest';
+import { VERSION } from '../src/version.js';
+
+describe('VERSION', () => {
+  it('is the package version', async () => {
+    const pkg = JSON.parse(await readFile(new URL('../package.json', import.meta.url), 'utf8')) as { version: string };
+    expect(VERSION).toBe(pkg.version);
+  });
+});
