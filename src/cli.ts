@@ -1,5 +1,7 @@
 import { isLexlockError } from './LexlockError.js';
+import { audit, AUDIT_HELP } from './commands/audit.js';
 import { build, BUILD_HELP } from './commands/build.js';
+import { compare, COMPARE_HELP } from './commands/compare.js';
 import { encode, ENCODE_HELP } from './commands/encode.js';
 import type { Io } from './commands/Io.js';
 import { verify, VERIFY_HELP } from './commands/verify.js';
@@ -12,6 +14,8 @@ const COMMANDS: Record<string, { run: (argv: readonly string[], io: Io) => Promi
   build: { run: build, help: BUILD_HELP },
   encode: { run: encode, help: ENCODE_HELP },
   verify: { run: verify, help: VERIFY_HELP },
+  audit: { run: audit, help: AUDIT_HELP },
+  compare: { run: compare, help: COMPARE_HELP },
 };
 
 /** `lexlock --help`. */
@@ -20,6 +24,8 @@ export const MAIN_HELP = `lexlock ${VERSION}: one fingerprinted lexicon file for
   lexlock build <corpus> -o <lexicon.json>        count a corpus, write a lexicon
   lexlock encode <corpus> --lexicon <file> -o <out>  ids as .jsonl or a folder of .npy files
   lexlock verify <lexicon.json>                   check schema, fingerprint and canaries
+  lexlock audit <corpus> --lexicon <file> | --cap N  what a cap and a length cost; drift; --report page
+  lexlock compare <a.json> <b.json>               two lexicons side by side
 
 Corpora: .csv, .tsv, .jsonl/.ndjson, .txt (a document a line), or a folder (a document a file).
 Run lexlock <command> --help for a command's flags.

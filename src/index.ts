@@ -23,3 +23,8 @@ export { canonicalJson } from './artifact/canonicalJson.js';
 export { fingerprintOf } from './artifact/fingerprint.js';
 export { PROBE_TEXTS } from './artifact/canaries.js';
 export { FORMAT_VERSION, LEXICON_FORMAT, type Encoding, type Fit, type Canary, type LexiconFile } from './artifact/schema.js';
+export { auditCorpus, type AuditOptions } from './audit/auditCorpus.js';
+export type { CoverageReport, LabelAudit, TokenCount, Suggestions, Drift } from './audit/CoverageReport.js';
+export { renderReport, type ReportContext } from './audit/report/renderReport.js';
+export { compareLexicons, type CompareOptions } from './audit/compareLexicons.js';
+export type { LexiconComparison } from './audit/compare/LexiconComparison.js';

@@ -59,6 +59,8 @@ export const fitSchema = z.strictObject({
   labels: z.array(z.strictObject({ label: z.string(), documents: count, tokens: count })),
   coverage: z.array(z.strictObject({ cap: count, share })),
   truncation: z.nullable(z.strictObject({ length: count, truncatedDocuments: count, droppedTokens: count })),
+  /** A Bloom filter of every token the corpus had (see SeenTokens), or null for very large vocabularies. */
+  seen: z.nullable(z.strictObject({ bits: z.string().check(z.regex(/^[A-Za-z0-9+/]+={0,2}$/)), hashes: z.number().check(z.int(), z.minimum(1), z.maximum(16)), types: count })),
 });
 
 /** A probe text and the tokens it gave when the lexicon was built. */

@@ -7,6 +7,7 @@ import { LexlockError } from '../LexlockError.js';
 import { describeLexiconText } from './describeLexicon.js';
 import type { Io } from './Io.js';
 import { parseArgs, positionals, valueOf, wholeNumberFlag } from './parseArgs.js';
+import { corpusBytes } from './corpusBytes.js';
 import { createProgress } from './progress.js';
 import { CORPUS_FLAGS, RULE_FLAGS, SHAPE_FLAGS, corpusOptions, rulesFromFlags, shapeFromFlags } from './sharedFlags.js';
 
@@ -65,7 +66,7 @@ export async function build(argv: readonly string[], io: Io): Promise<number> {
   const options = corpusOptions(args);
   await assertWritable(output, force);
 
-  const progress = createProgress(io, 'build', args.switches.has('quiet'));
+  const progress = createProgress(io, 'build', { quiet: args.switches.has('quiet'), totalBytes: await corpusBytes(corpus) });
   const reader = readCorpus(corpus, { ...options, onProgress: (p) => progress.update(p) });
   let result;
   try {

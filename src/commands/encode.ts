@@ -13,6 +13,7 @@ import { VERSION } from '../version.js';
 import { count, pairs, percent } from './format.js';
 import type { Io } from './Io.js';
 import { parseArgs, positionals, valueOf } from './parseArgs.js';
+import { corpusBytes } from './corpusBytes.js';
 import { createProgress } from './progress.js';
 import { CORPUS_FLAGS, SHAPE_FLAGS, corpusOptions, shapeFromFlags } from './sharedFlags.js';
 
@@ -143,7 +144,7 @@ export async function encode(argv: readonly string[], io: Io): Promise<number> {
   if (jsonl) await assertWritable(output, force);
   else await assertFolderWritable(output, force);
 
-  const progress = createProgress(io, 'encode', args.switches.has('quiet'));
+  const progress = createProgress(io, 'encode', { quiet: args.switches.has('quiet'), totalBytes: await corpusBytes(corpus) });
   const reader = readCorpus(corpus, { ...options, onProgress: (p) => progress.update(p) });
   const manifest = (stats: EncodeStats, labelled: boolean) => ({
     format: 'lexlock.encoded',

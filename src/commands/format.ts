@@ -13,3 +13,8 @@ export function pairs(rows: ReadonlyArray<readonly [string, string]>): string {
   const width = Math.max(...rows.map(([k]) => k.length));
   return rows.map(([k, v]) => `${k.padEnd(width)}  ${v}\n`).join('');
 }
+
+/** A count with its noun, singular for 1: `1 document`, `12,345 documents`. */
+export function counted(n: number, noun: string): string {
+  return `${count(n)} ${n === 1 ? noun : `${noun}s`}`;
+}

@@ -6,6 +6,7 @@ import type { Tally } from '../tally/Tally.js';
 import { VERSION } from '../version.js';
 import { Lexicon } from './Lexicon.js';
 import { rankTokens } from './rankTokens.js';
+import { SeenTokens } from './SeenTokens.js';
 import { checkShape, type Shape } from './Shape.js';
 
 /** How a tally becomes a lexicon. Every member is optional. */
@@ -126,6 +127,7 @@ export function freeze(tally: Tally, options: FreezeOptions = {}): Lexicon {
       .map(([label, c]) => ({ label, documents: c.documents, tokens: c.tokens })),
     coverage,
     truncation,
+    seen: SeenTokens.of(tally.counts.keys(), tally.types)?.toJSON() ?? null,
   };
 
   return new Lexicon(encoding, fit, makeCanaries(tally.rules, options.snippets ?? []));

@@ -10,7 +10,7 @@ describe('createProgress', () => {
   it('draws documents, MB and rate on a terminal, at most every 250 ms, and clears the line', () => {
     const { out, io: terminal } = io(true);
     let t = 0;
-    const p = createProgress(terminal, 'build', false, () => t);
+    const p = createProgress(terminal, 'build', { now: () => t });
     t = 1000;
     p.update({ bytes: 5_000_000, documents: 12345 });
     t = 1100;
@@ -25,12 +25,21 @@ describe('createProgress', () => {
     ]);
   });
 
+  it('draws a bar when the corpus size is known', () => {
+    const { out, io: terminal } = io(true);
+    let t = 0;
+    const p = createProgress(terminal, 'audit', { totalBytes: 10_000_000, now: () => t });
+    t = 1000;
+    p.update({ bytes: 4_500_000, documents: 10 });
+    expect(out).toEqual(['\raudit  [#########-----------]  45 %  10 documents  4.5 MB  4.5 MB/s\x1b[K']);
+  });
+
   it.each([
     ['not a terminal', false, false],
     ['--quiet', true, true],
   ])('is silent when stderr is %s', (_what, isTTY, quiet) => {
     const { out, io: s } = io(isTTY);
-    const p = createProgress(s, 'build', quiet, () => 10_000);
+    const p = createProgress(s, 'build', { quiet, now: () => 10_000 });
     p.update({ bytes: 1, documents: 1 });
     p.done();
     expect(out).toEqual([]);

@@ -1,0 +1,78 @@
+import type { Shape } from '../lexicon/Shape.js';
+import type { LengthSummary } from '../tally/nearestRank.js';
+
+/** Per-label audit figures. */
+export interface LabelAudit {
+  documents: number;
+  tokens: number;
+  oovTokens: number;
+  truncatedDocuments: number;
+}
+
+/** A token and how often it occurs. */
+export interface TokenCount {
+  token: string;
+  count: number;
+}
+
+/** Caps and lengths that would cover a share of this corpus (nearest-rank for lengths). */
+export interface Suggestions {
+  capFor90: number;
+  capFor95: number;
+  capFor99: number;
+  lengthFor90: number;
+  lengthFor95: number;
+  lengthFor99: number;
+}
+
+/** This corpus against the lexicon's fit record: then and now. */
+export interface Drift {
+  oovRate: { fit: number; now: number };
+  length: { fit: LengthSummary; now: LengthSummary };
+  /** Share of documents per label, at fit time and now (labels of either). */
+  labels: Record<string, { fit: number; now: number }>;
+  /** The most frequent tokens of this corpus that the fit corpus never had (see `unseenBasis`). */
+  unseenTokens: TokenCount[];
+  /**
+   * What "unseen" was checked against: `fit` when the lexicon's fit record carries its filter of every
+   * token the fit corpus had (a Bloom filter: a rare unseen token may pass as seen, never the reverse),
+   * `vocabulary` when it does not (very large vocabularies), so unseen means "has no id".
+   */
+  unseenBasis: 'fit' | 'vocabulary';
+}
+
+/**
+ * What a vocabulary cap and a sequence length cost on a corpus. Every figure is an exact count from
+ * the same tokenization and ids as `encode`. Member names are a public contract (`lexlock audit --json`).
+ */
+export interface CoverageReport {
+  documents: number;
+  /** All tokens of all documents, before any cut. */
+  tokens: number;
+  /** Distinct tokens in this corpus. */
+  types: number;
+  oovTokens: number;
+  oovRate: number;
+  /** The shape truncation figures were computed for, or null (then they are 0). */
+  shape: Shape | null;
+  truncatedDocuments: number;
+  droppedTokens: number;
+  paddingTokens: number;
+  /** Tokens per document, nearest-rank. */
+  length: LengthSummary;
+  labels: Record<string, LabelAudit>;
+  /** Most frequent OOV tokens, count descending then JavaScript string order. */
+  topOov: TokenCount[];
+  suggest: Suggestions;
+  /**
+   * The coverage curve: share of this corpus's token occurrences covered by its own `cap` most
+   * frequent tokens (what a vocabulary of that cap would keep), at log-spaced caps up to all types.
+   */
+  coverage: Array<{ cap: number; share: number }>;
+  /** Documents per length (tokens per document), ascending by length. */
+  lengthHistogram: Array<{ length: number; documents: number }>;
+  /** The lexicon audited against. */
+  lexicon: { fingerprint: string; tokens: number; size: number; reserved: number };
+  /** Present when the lexicon carries a fit record (a lexicon file, not one frozen for this audit). */
+  drift?: Drift;
+}

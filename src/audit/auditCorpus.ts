@@ -1,0 +1,108 @@
+import type { Lexicon } from '../lexicon/Lexicon.js';
+import { rankTokens } from '../lexicon/rankTokens.js';
+import type { Shape } from '../lexicon/Shape.js';
+import { summarizeLengths } from '../tally/nearestRank.js';
+import { Tally, type LabelledText } from '../tally/Tally.js';
+import type { CoverageReport, LabelAudit, TokenCount } from './CoverageReport.js';
+import { coverageCurve } from './coverageCurve.js';
+import { drift } from './drift.js';
+import { suggest } from './suggest.js';
+
+/** Options of {@link auditCorpus}. */
+export interface AuditOptions {
+  /** The shape to count truncation and padding for; default the lexicon's own (none: figures are 0). */
+  shape?: Shape | null;
+  /** How many OOV tokens to list (default 50). */
+  top?: number;
+  /** Compare with the lexicon's fit record (default: when it has one). */
+  drift?: boolean;
+}
+
+/**
+ * Audits a corpus against a lexicon in one streaming pass: OOV, truncation and padding overall and
+ * per label, the coverage curve, cap and length suggestions, the most frequent OOV tokens and, when
+ * the lexicon has a fit record, drift. Uses the lexicon's own tokenize and ids, so every figure agrees
+ * with `encode`. Memory grows with the number of distinct tokens, not with the corpus. Browser-safe.
+ * @example const report = await auditCorpus(readCorpus('live.jsonl'), lexicon); report.oovRate
+ */
+export async function auditCorpus(
+  documents: AsyncIterable<string | LabelledText> | Iterable<string | LabelledText>,
+  lexicon: Lexicon,
+  options: AuditOptions = {},
+): Promise<CoverageReport> {
+  const shape = options.shape === undefined ? lexicon.shape : options.shape;
+  const length = shape === null ? null : shape.length;
+  const tally = new Tally(lexicon.rules);
+  const labels = new Map<string, LabelAudit>();
+  let oovTokens = 0;
+  let truncatedDocuments = 0;
+  let droppedTokens = 0;
+  let paddingTokens = 0;
+  for await (const doc of documents) {
+    const text = typeof doc === 'string' ? doc : doc.text;
+    const label = typeof doc === 'string' ? undefined : doc.label;
+    const tokens = lexicon.tokenize(text);
+    const ids = lexicon.idsOf(tokens);
+    tally.addTokens(tokens, label);
+    let oov = 0;
+    for (let i = 0; i < ids.length; i++) if (ids[i] === lexicon.oovId) oov += 1;
+    oovTokens += oov;
+    const cut = length !== null && ids.length > length;
+    if (length !== null) {
+      if (cut) {
+        truncatedDocuments += 1;
+        droppedTokens += ids.length - length;
+      } else paddingTokens += length - ids.length;
+    }
+    if (label !== undefined) {
+      const l = labels.get(label) ?? { documents: 0, tokens: 0, oovTokens: 0, truncatedDocuments: 0 };
+      l.documents += 1;
+      l.tokens += ids.length;
+      l.oovTokens += oov;
+      if (cut) l.truncatedDocuments += 1;
+      labels.set(label, l);
+    }
+  }
+
+  const ranked = rankTokens(tally.counts);
+  const rankedCounts = ranked.map(([, n]) => n);
+  const chosenCap = lexicon.encoding.tokens.length - lexicon.encoding.layout.reserved;
+  // `ranked` is in count-then-string order already, so its OOV tokens are too.
+  const oovRanked: TokenCount[] = [];
+  for (const [token, count] of ranked) if (!lexicon.has(token)) oovRanked.push({ token, count });
+  const topOov = oovRanked.slice(0, options.top ?? 50);
+  const lengthSummary = summarizeLengths(tally.lengths);
+  const oovRate = tally.tokens === 0 ? 0 : oovTokens / tally.tokens;
+  const sortedLabels = [...labels.entries()].sort((a, b) => (a[0] < b[0] ? -1 : a[0] > b[0] ? 1 : 0));
+
+  const report: CoverageReport = {
+    documents: tally.documents,
+    tokens: tally.tokens,
+    types: tally.types,
+    oovTokens,
+    oovRate,
+    shape,
+    truncatedDocuments,
+    droppedTokens,
+    paddingTokens,
+    length: lengthSummary,
+    // fromEntries defines own properties, so labels such as "__proto__" stay ordinary members.
+    labels: Object.fromEntries(sortedLabels),
+    topOov,
+    suggest: suggest(rankedCounts, tally.tokens, tally.lengths),
+    coverage: coverageCurve(rankedCounts, tally.tokens, [chosenCap]),
+    lengthHistogram: [...tally.lengths.entries()].sort((a, b) => a[0] - b[0]).map(([l, documents]) => ({ length: l, documents })),
+    lexicon: { fingerprint: lexicon.fingerprint, tokens: lexicon.encoding.tokens.length, size: lexicon.size, reserved: lexicon.encoding.layout.reserved },
+  };
+  if ((options.drift ?? true) && lexicon.fit !== null) {
+    report.drift = drift(lexicon.fit, {
+      documents: tally.documents,
+      oovRate,
+      length: lengthSummary,
+      labelDocuments: new Map(sortedLabels.map(([l, a]) => [l, a.documents])),
+      oovTokens: oovRanked,
+      top: options.top ?? 50,
+    });
+  }
+  return report;
+}

@@ -1,0 +1,53 @@
+import type { CoverageReport } from '../../CoverageReport.js';
+import { formatCount } from '../formatCount.js';
+import { formatPercent, UNIT_SPACE } from '../formatPercent.js';
+import { formatTick } from '../formatTick.js';
+import { shareOf } from '../shareOf.js';
+import { groupedBars } from '../svg/groupedBars.js';
+import { PALETTE } from '../svg/palette.js';
+import { chartFigure } from './chartFigure.js';
+import { htmlTable } from './htmlTable.js';
+import { note } from './note.js';
+import { sortedEntries } from './sortedEntries.js';
+
+/** The chart shows at most this many labels (those with the most documents); the table shows all. */
+export const MAX_CHART_LABELS = 30;
+
+/** OOV rate and truncated-document share per label, side by side, and a table of every label. */
+export function labelSection(report: CoverageReport): string {
+  const heading = '<h2>By label</h2>';
+  const entries = sortedEntries(report.labels);
+  if (entries.length === 0) return `<section id="labels">${heading}${note('This corpus has no labels, so there are no per-label figures.')}</section>`;
+  const shown =
+    entries.length <= MAX_CHART_LABELS
+      ? entries
+      : [...entries].sort((a, b) => b[1].documents - a[1].documents).slice(0, MAX_CHART_LABELS).sort((a, b) => (a[0] < b[0] ? -1 : 1));
+  const cut = report.shape === null ? 'no length set' : `longer than ${formatCount(report.shape.length)} tokens`;
+  const title = 'OOV rate and truncated documents per label';
+  const svg = groupedBars({
+    id: 'chart-labels',
+    title,
+    description: `For each of ${formatCount(shown.length)} labels: the share of its token occurrences that are OOV, and the share of its documents that are truncated (${cut}).`,
+    series: [
+      { name: 'OOV rate (% of the label\'s tokens)', tag: 'OOV', colour: PALETTE.primary, hatched: false },
+      { name: 'truncated (% of the label\'s documents)', tag: 'cut', colour: PALETTE.accent, hatched: true },
+    ],
+    groups: shown.map(([name, a]) => ({
+      name,
+      note: `${formatCount(a.documents)} documents`,
+      values: [shareOf(a.oovTokens, a.tokens) * 100, shareOf(a.truncatedDocuments, a.documents) * 100],
+    })),
+    xTitle: 'share (%)',
+    format: (v) => formatPercent(v / 100),
+    tickFormat: (v) => `${formatTick(v)}${UNIT_SPACE}%`,
+  });
+  const caption =
+    (entries.length > shown.length ? `Showing the ${formatCount(shown.length)} labels with the most documents of ${formatCount(entries.length)}; the table lists all. ` : '') +
+    `Solid bars: OOV rate; striped bars: truncated documents (${cut}).`;
+  const table = htmlTable(
+    'Every label',
+    [{ heading: 'label', code: true }, { heading: 'documents', numeric: true }, { heading: 'tokens', numeric: true }, { heading: 'OOV rate', numeric: true }, { heading: 'truncated documents', numeric: true }],
+    entries.map(([name, a]) => [name, formatCount(a.documents), formatCount(a.tokens), formatPercent(shareOf(a.oovTokens, a.tokens)), formatPercent(shareOf(a.truncatedDocuments, a.documents))]),
+  );
+  return `<section id="labels">${heading}${chartFigure(title, svg, caption)}${table}</section>`;
+}

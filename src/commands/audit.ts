@@ -1,0 +1,149 @@
+import { auditCorpus } from '../audit/auditCorpus.js';
+import type { CoverageReport } from '../audit/CoverageReport.js';
+import { renderReport } from '../audit/report/renderReport.js';
+import { readCorpus } from '../corpus/readCorpus.js';
+import { writeFileAtomic } from '../files/atomicWrite.js';
+import { loadLexicon } from '../files/loadLexicon.js';
+import { assertWritable } from '../files/refuseOverwrite.js';
+import { freeze } from '../lexicon/freeze.js';
+import type { Lexicon } from '../lexicon/Lexicon.js';
+import { LexlockError } from '../LexlockError.js';
+import { tallyCorpus } from '../pipeline/tallyCorpus.js';
+import { VERSION } from '../version.js';
+import { auditSummary, crossedGates, type Gates } from './auditSummary.js';
+import { paintFor } from './colour.js';
+import { corpusBytes } from './corpusBytes.js';
+import type { Io } from './Io.js';
+import { parseArgs, positionals, valueOf, wholeNumberFlag, type ParsedArgs } from './parseArgs.js';
+import { createProgress } from './progress.js';
+import { CORPUS_FLAGS, RULE_FLAGS, SHAPE_FLAGS, corpusOptions, rulesFromFlags, shapeFromFlags } from './sharedFlags.js';
+
+/** `lexlock audit --help`. */
+export const AUDIT_HELP = `lexlock audit <corpus> (--lexicon <lexicon.json> | --cap N) [options]
+
+What a vocabulary cap and a sequence length cost on a corpus: OOV, truncation and padding, overall and
+per label, the caps and lengths that would cover 90/95/99 %, the most frequent OOV tokens, and with
+--lexicon the drift from the corpus the lexicon was built on.
+
+  --lexicon FILE        audit held-out or live data against the lexicon a model was trained with
+  --cap N               or: count the corpus, keep N tokens, and audit it against itself
+  --min-count N         with --cap: drop tokens seen fewer than N times (default 1)
+  --level, --case, --unicode, --drop, --collapse   with --cap: text rules as in lexlock build
+  --length L            count truncation and padding at length L (default: the lexicon's shape)
+  --pad pre|post, --cut pre|post   with --length (default post)
+  --text FIELD, --label FIELD, --bad-text fail|replace|skip   as in lexlock build
+  --json                print the report as one JSON object
+  --report FILE.html    also write a self-contained HTML page with the charts (--force to overwrite)
+  --max-oov R           exit 3 when the OOV rate is above R (a share such as 0.05, or 5%)
+  --max-truncated R     exit 3 when the share of truncated documents is above R
+  -q, --quiet           no progress on stderr
+`;
+
+function shareFlag(args: ParsedArgs, name: string): number | null {
+  const raw = valueOf(args, name);
+  if (raw === undefined) return null;
+  const percentForm = raw.endsWith('%');
+  const n = Number(percentForm ? raw.slice(0, -1) : raw);
+  const share = percentForm ? n / 100 : n;
+  if (raw.trim() === '' || !Number.isFinite(share) || share < 0 || share > 1) {
+    throw new LexlockError('USAGE_BAD_VALUE', `--${name}: "${raw}" is not a share from 0 to 1 (such as 0.05) or a percentage (such as 5%)`, { field: `--${name}` });
+  }
+  return share;
+}
+
+const RULE_FLAG_NAMES = ['level', 'case', 'unicode', 'drop', 'collapse', 'min-count'];
+
+/** `lexlock audit`: exit 0, 1 for bad input, 2 for bad usage, 3 when a threshold is crossed. */
+export async function audit(argv: readonly string[], io: Io): Promise<number> {
+  const args = parseArgs('audit', argv, {
+    lexicon: { kind: 'value' },
+    cap: { kind: 'value' },
+    'min-count': { kind: 'value' },
+    json: { kind: 'switch' },
+    report: { kind: 'value' },
+    force: { kind: 'switch' },
+    'max-oov': { kind: 'value' },
+    'max-truncated': { kind: 'value' },
+    ...CORPUS_FLAGS,
+    ...RULE_FLAGS,
+    ...SHAPE_FLAGS,
+  });
+  const [corpus] = positionals('audit', args, ['corpus']) as [string];
+  const lexiconPath = valueOf(args, 'lexicon');
+  const cap = wholeNumberFlag(args, 'cap', 1);
+  if ((lexiconPath === undefined) === (cap === undefined)) {
+    throw new LexlockError(
+      'USAGE_MISSING',
+      lexiconPath === undefined
+        ? 'pass --lexicon FILE to audit against a lexicon, or --cap N to audit the corpus against itself'
+        : '--lexicon and --cap exclude each other: the lexicon already fixes its vocabulary',
+      { field: lexiconPath === undefined ? '--lexicon' : '--cap' },
+    );
+  }
+  if (lexiconPath !== undefined) {
+    const given = RULE_FLAG_NAMES.find((f) => args.values.has(f));
+    if (given !== undefined) {
+      throw new LexlockError('USAGE_BAD_VALUE', `--${given} goes with --cap; with --lexicon the lexicon fixes the text rules`, { field: `--${given}` });
+    }
+  }
+  const gates: Gates = { maxOov: shareFlag(args, 'max-oov'), maxTruncated: shareFlag(args, 'max-truncated') };
+  const flagShape = shapeFromFlags(args);
+  const reportPath = valueOf(args, 'report');
+  if (reportPath !== undefined) await assertWritable(reportPath, args.switches.has('force'));
+  const quiet = args.switches.has('quiet');
+  const totalBytes = await corpusBytes(corpus);
+
+  let lexicon: Lexicon;
+  let options;
+  if (lexiconPath !== undefined) {
+    lexicon = await loadLexicon(lexiconPath);
+    const hasFields = ['csv', 'tsv', 'jsonl'].includes(readCorpus(corpus).kind);
+    const fit = hasFields ? lexicon.fit : null;
+    options = corpusOptions(args, { text: fit?.textField ?? undefined, label: fit?.labelField ?? undefined });
+  } else {
+    options = corpusOptions(args);
+    const rules = rulesFromFlags(args);
+    const counting = createProgress(io, 'audit 1/2 counting', { quiet, totalBytes });
+    try {
+      const { tally } = await tallyCorpus(readCorpus(corpus, { ...options, onProgress: (p) => counting.update(p) }), rules);
+      lexicon = freeze(tally, { cap: cap ?? null, minCount: wholeNumberFlag(args, 'min-count', 1) ?? 1, shape: flagShape });
+    } finally {
+      counting.done();
+    }
+  }
+  const shape = flagShape ?? lexicon.shape;
+  const progress = createProgress(io, lexiconPath === undefined ? 'audit 2/2 measuring' : 'audit', { quiet, totalBytes });
+  const reader = readCorpus(corpus, { ...options, onProgress: (p) => progress.update(p) });
+  let report: CoverageReport;
+  try {
+    report = await auditCorpus(reader, lexicon, { shape, drift: lexiconPath !== undefined });
+  } finally {
+    progress.done();
+  }
+
+  if (reportPath !== undefined) {
+    const settings: Record<string, string> = lexiconPath === undefined ? { cap: String(cap) } : { lexicon: lexiconPath };
+    if (shape !== null) settings.length = `${shape.length} (pad ${shape.pad}, cut ${shape.cut})`;
+    if (options.label !== undefined) settings.label = options.label;
+    if (gates.maxOov !== null) settings['max OOV'] = String(gates.maxOov);
+    if (gates.maxTruncated !== null) settings['max truncated'] = String(gates.maxTruncated);
+    const html = renderReport(report, { corpus, lexiconFile: lexiconPath ?? null, settings, generatedAt: new Date().toISOString(), lexlockVersion: VERSION });
+    await writeFileAtomic(reportPath, html);
+  }
+  const crossed = crossedGates(report, gates);
+  if (args.switches.has('json')) {
+    io.stdout.write(`${JSON.stringify(report)}\n`);
+  } else {
+    const against = lexiconPath === undefined ? `itself at cap ${cap}` : `${lexiconPath} (${lexicon.fingerprint})`;
+    io.stdout.write(auditSummary(report, `audit of ${corpus} against ${against}`, gates, paintFor(io)));
+    if (reportPath !== undefined) io.stdout.write(`\nwrote ${reportPath}\n`);
+  }
+  if (reader.stats.replaced > 0 || reader.stats.skipped > 0) {
+    io.stderr.write(`lexlock audit: note: ${reader.stats.replaced} documents had invalid UTF-8 replaced, ${reader.stats.skipped} were skipped\n`);
+  }
+  if (crossed.length > 0) {
+    io.stderr.write(`lexlock audit: ${crossed.join('; ')}\n`);
+    return 3;
+  }
+  return 0;
+}

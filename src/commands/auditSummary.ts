@@ -1,0 +1,90 @@
+import type { CoverageReport } from '../audit/CoverageReport.js';
+import type { Paint } from './colour.js';
+import { count, counted, percent } from './format.js';
+
+/** Thresholds the audit gates on (shares, 0…1), and which are crossed. */
+export interface Gates {
+  maxOov: number | null;
+  maxTruncated: number | null;
+}
+
+/** The share of documents the audit found truncated. */
+export function truncatedShare(report: CoverageReport): number {
+  return report.documents === 0 ? 0 : report.truncatedDocuments / report.documents;
+}
+
+/** One line per crossed threshold, e.g. `OOV rate 6.12 % is above --max-oov 5.00 %`; empty when none is. */
+export function crossedGates(report: CoverageReport, gates: Gates): string[] {
+  const out: string[] = [];
+  if (gates.maxOov !== null && report.oovRate > gates.maxOov) {
+    out.push(`OOV rate ${percent(report.oovRate)} is above --max-oov ${percent(gates.maxOov)}`);
+  }
+  if (gates.maxTruncated !== null && truncatedShare(report) > gates.maxTruncated) {
+    out.push(`${percent(truncatedShare(report))} of documents are truncated, above --max-truncated ${percent(gates.maxTruncated)}`);
+  }
+  return out;
+}
+
+function table(rows: string[][], paint: Paint): string {
+  const widths = rows[0]!.map((_, c) => Math.max(...rows.map((r) => (r[c] ?? '').length)));
+  return rows
+    .map((r, i) => {
+      const line = r.map((cell, c) => (c === 0 ? cell.padEnd(widths[c]!) : cell.padStart(widths[c]!))).join('  ');
+      return i === 0 ? paint.dim(line) : line;
+    })
+    .join('\n');
+}
+
+const lengths = (l: CoverageReport['length']) => `min ${l.min}  p50 ${l.p50}  p90 ${l.p90}  p95 ${l.p95}  p99 ${l.p99}  max ${l.max}`;
+
+/** The audit as a compact, aligned terminal summary. */
+export function auditSummary(report: CoverageReport, heading: string, gates: Gates, paint: Paint): string {
+  const oovBad = gates.maxOov !== null && report.oovRate > gates.maxOov;
+  const cutBad = gates.maxTruncated !== null && truncatedShare(report) > gates.maxTruncated;
+  const mark = (bad: boolean, gate: number | null, flag: string) =>
+    gate === null ? '' : bad ? paint.red(`  above ${flag} ${percent(gate)}`) : paint.green(`  within ${flag} ${percent(gate)}`);
+  const s = report.suggest;
+  const rows: Array<[string, string]> = [
+    ['documents', count(report.documents)],
+    ['tokens', `${count(report.tokens)} (${count(report.types)} distinct)`],
+    ['OOV', `${oovBad ? paint.red(percent(report.oovRate)) : percent(report.oovRate)} of tokens (${count(report.oovTokens)})${mark(oovBad, gates.maxOov, '--max-oov')}`],
+    ['tokens/document', lengths(report.length)],
+  ];
+  if (report.shape !== null) {
+    const share = percent(truncatedShare(report));
+    rows.push([
+      `at length ${report.shape.length}`,
+      `${counted(report.truncatedDocuments, 'document')} cut (${cutBad ? paint.red(share) : share}), ${counted(report.droppedTokens, 'token')} dropped, ${counted(report.paddingTokens, 'padding token')}${mark(cutBad, gates.maxTruncated, '--max-truncated')}`,
+    ]);
+  }
+  rows.push(['caps that cover', `90 % of tokens: ${count(s.capFor90)}, 95 %: ${count(s.capFor95)}, 99 %: ${count(s.capFor99)} (lexicon has ${count(report.lexicon.tokens - report.lexicon.reserved)})`]);
+  rows.push(['lengths that fit', `90 % of documents: ${s.lengthFor90}, 95 %: ${s.lengthFor95}, 99 %: ${s.lengthFor99}`]);
+  if (report.topOov.length > 0) {
+    rows.push(['top OOV', report.topOov.slice(0, 10).map((t) => `${t.token} (${count(t.count)})`).join(', ')]);
+  }
+  const width = Math.max(...rows.map(([k]) => k.length));
+  let out = `${paint.bold(heading)}\n${rows.map(([k, v]) => `${k.padEnd(width)}  ${v}`).join('\n')}\n`;
+
+  const labels = Object.entries(report.labels);
+  if (labels.length > 0) {
+    const head = ['label', 'documents', 'tokens', 'OOV', ...(report.shape === null ? [] : ['truncated'])];
+    const body = labels.map(([label, a]) => [
+      label,
+      count(a.documents),
+      count(a.tokens),
+      percent(a.tokens === 0 ? 0 : a.oovTokens / a.tokens),
+      ...(report.shape === null ? [] : [percent(a.documents === 0 ? 0 : a.truncatedDocuments / a.documents)]),
+    ]);
+    out += `\n${table([head, ...body], paint)}\n`;
+  }
+  const d = report.drift;
+  if (d !== undefined) {
+    const shares = Object.entries(d.labels).map(([label, v]) => [label, percent(v.fit), percent(v.now)]);
+    out += `\n${paint.bold('drift since the lexicon was built')}\n`;
+    out += `OOV              ${percent(d.oovRate.fit)} then, ${percent(d.oovRate.now)} now\n`;
+    out += `tokens/document  then ${lengths(d.length.fit)}\n                 now  ${lengths(d.length.now)}\n`;
+    if (d.unseenTokens.length > 0) out += `new tokens       ${d.unseenTokens.slice(0, 10).map((t) => `${t.token} (${count(t.count)})`).join(', ')}\n`;
+    if (shares.length > 0) out += `\n${table([['label share', 'then', 'now'], ...shares], paint)}\n`;
+  }
+  return out;
+}

@@ -1,0 +1,107 @@
+import { readFile, writeFile } from 'node:fs/promises';
+import { afterEach, beforeEach, describe, expect, it } from 'vitest';
+import { run } from '../../src/cli.js';
+import { cli, tempFolder } from '../helpers/cli.js';
+
+let tmp: Awaited<ReturnType<typeof tempFolder>>;
+beforeEach(async () => {
+  tmp = await tempFolder();
+  await writeFile(tmp.path('train.csv'), 'text,topic\nthe ferry was late again,delays\nthe ferry was lovely,praise\nlate late late,delays\n');
+  await writeFile(tmp.path('live.csv'), 'text,topic\nlate late ferry,delays\nthe crossing was rough and late,delays\nlovely,praise\nrough rough sea,refunds\n');
+  await cli('build', tmp.path('train.csv'), '-o', tmp.path('lex.json'), '--label', 'topic', '--cap', '3', '--length', '4');
+});
+afterEach(async () => {
+  await tmp.remove();
+});
+
+describe('lexlock audit', () => {
+  it('prints the JSON report with the contract member names', async () => {
+    const r = await cli('audit', tmp.path('live.csv'), '--lexicon', tmp.path('lex.json'), '--json');
+    expect(r.stderr).toBe('');
+    expect(r.code).toBe(0);
+    const report = JSON.parse(r.stdout);
+    for (const member of ['documents', 'tokens', 'oovTokens', 'oovRate', 'truncatedDocuments', 'droppedTokens', 'paddingTokens', 'length', 'labels', 'topOov', 'suggest', 'drift']) {
+      expect(report).toHaveProperty(member);
+    }
+    expect(Object.keys(report.length)).toEqual(['min', 'p50', 'p90', 'p95', 'p99', 'max']);
+    expect(Object.keys(report.suggest)).toEqual(['capFor90', 'capFor95', 'capFor99', 'lengthFor90', 'lengthFor95', 'lengthFor99']);
+    expect(Object.keys(report.labels.delays)).toEqual(['documents', 'tokens', 'oovTokens', 'truncatedDocuments']);
+    expect(Object.keys(report.topOov[0])).toEqual(['token', 'count']);
+    // Hand-counted (see tests/audit/auditCorpus.test.ts for the same corpus): 13 tokens, 8 OOV; at the
+    // lexicon's length 4 one document of 6 tokens is cut, dropping 2.
+    expect([report.documents, report.tokens, report.oovTokens, report.truncatedDocuments, report.droppedTokens, report.paddingTokens]).toEqual([4, 13, 8, 1, 2, 5]);
+    expect(report.drift.oovRate).toEqual({ fit: 4 / 12, now: 8 / 13 });
+  });
+
+  it.each([
+    [['--max-oov', '0.7'], 0, ''],
+    [['--max-oov', '0.5'], 3, 'lexlock audit: OOV rate 61.54 % is above --max-oov 50.00 %\n'],
+    [['--max-oov', '50%'], 3, 'lexlock audit: OOV rate 61.54 % is above --max-oov 50.00 %\n'],
+    [['--max-truncated', '0.25'], 0, ''],
+    [['--max-truncated', '0.2'], 3, 'lexlock audit: 25.00 % of documents are truncated, above --max-truncated 20.00 %\n'],
+    [['--max-oov', '0.1', '--max-truncated', '0.1'], 3, 'lexlock audit: OOV rate 61.54 % is above --max-oov 10.00 %; 25.00 % of documents are truncated, above --max-truncated 10.00 %\n'],
+  ])('gates on %j: exit %d', async (flags, code, stderr) => {
+    const r = await cli('audit', tmp.path('live.csv'), '--lexicon', tmp.path('lex.json'), ...flags);
+    expect([r.code, r.stderr]).toEqual([code, stderr]);
+  });
+
+  it('audits a corpus against itself with --cap', async () => {
+    const r = await cli('audit', tmp.path('train.csv'), '--cap', '3', '--label', 'topic', '--json');
+    expect(r.code).toBe(0);
+    const report = JSON.parse(r.stdout);
+    expect([report.tokens, report.oovTokens, report.truncatedDocuments]).toEqual([12, 4, 0]);
+    expect(report.drift).toBeUndefined();
+    expect(report.labels.praise).toEqual({ documents: 1, tokens: 4, oovTokens: 2, truncatedDocuments: 0 });
+  });
+
+  it.each([
+    [[], 'lexlock audit: pass --lexicon FILE to audit against a lexicon, or --cap N to audit the corpus against itself\n'],
+    [['--cap', '3', '--lexicon', 'x.json'], 'lexlock audit: --lexicon and --cap exclude each other: the lexicon already fixes its vocabulary\n'],
+    [['--cap', '3', '--max-oov', '7'], 'lexlock audit: --max-oov: "7" is not a share from 0 to 1 (such as 0.05) or a percentage (such as 5%)\n'],
+    [['--cap', '0'], 'lexlock audit: --cap: "0" is not a whole number of at least 1\n'],
+  ])('exits 2 for %j', async (flags, stderr) => {
+    const r = await cli('audit', tmp.path('live.csv'), ...flags);
+    expect([r.code, r.stderr]).toEqual([2, stderr]);
+  });
+
+  it('refuses rule flags with --lexicon', async () => {
+    const r = await cli('audit', tmp.path('live.csv'), '--lexicon', tmp.path('lex.json'), '--case', 'keep');
+    expect([r.code, r.stderr]).toEqual([2, 'lexlock audit: --case goes with --cap; with --lexicon the lexicon fixes the text rules\n']);
+  });
+
+  it('exits 1 naming the place of bad input', async () => {
+    await writeFile(tmp.path('bad.jsonl'), '{"text": "ok"}\n[1, 2]\n');
+    const r = await cli('audit', tmp.path('bad.jsonl'), '--cap', '3');
+    expect(r.code).toBe(1);
+    expect(r.stderr).toMatch(new RegExp(`^lexlock audit: ${tmp.path('bad.jsonl').replace(/[.]/g, '\\.')} line 2: `));
+  });
+
+  it('prints an aligned summary, coloured only on a terminal without NO_COLOR', async () => {
+    const plain = await cli('audit', tmp.path('live.csv'), '--lexicon', tmp.path('lex.json'), '--max-oov', '0.5');
+    expect(plain.stdout).not.toContain('\x1b[');
+    expect(plain.stdout).toContain('\nOOV               61.54 % of tokens (8)  above --max-oov 50.00 %\n');
+    expect(plain.stdout).toContain('\nat length 4       1 document cut (25.00 %), 2 tokens dropped, 5 padding tokens\n');
+    expect(plain.stdout).toContain('\ncaps that cover   90 % of tokens: 8, 95 %: 9, 99 %: 9 (lexicon has 3)\n');
+    expect(plain.stdout).toContain(
+      ['label    documents  tokens       OOV  truncated', 'delays           2       9   44.44 %    50.00 %', 'praise           1       1  100.00 %     0.00 %', 'refunds          1       3  100.00 %     0.00 %'].join('\n'),
+    );
+    expect(plain.stdout).toContain('\nnew tokens       rough (3), and (1), crossing (1), sea (1)\n');
+    const runOn = async (env: Record<string, string>) => {
+      let out = '';
+      await run(['audit', tmp.path('live.csv'), '--lexicon', tmp.path('lex.json')], { stdout: { write: (t: string) => (out += t), isTTY: true }, stderr: { write: () => true }, env });
+      return out;
+    };
+    expect(await runOn({})).toContain('\x1b[');
+    expect(await runOn({ NO_COLOR: '1' })).not.toContain('\x1b[');
+  });
+
+  it('writes the HTML report, refusing to overwrite without --force', async () => {
+    const r = await cli('audit', tmp.path('live.csv'), '--lexicon', tmp.path('lex.json'), '--report', tmp.path('r.html'));
+    expect(r.code).toBe(0);
+    const html = await readFile(tmp.path('r.html'), 'utf8');
+    expect(html).toContain(JSON.parse(await readFile(tmp.path('lex.json'), 'utf8')).fingerprint);
+    expect(html).not.toMatch(/<script/i);
+    const again = await cli('audit', tmp.path('live.csv'), '--lexicon', tmp.path('lex.json'), '--report', tmp.path('r.html'));
+    expect([again.code, again.stderr]).toEqual([1, `lexlock audit: ${tmp.path('r.html')} already exists; pass --force to overwrite it\n`]);
+  });
+});
