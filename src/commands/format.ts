@@ -1,6 +1,8 @@
-/** A whole number with thousands separators: 12,345. */
+import { formatCount } from '../audit/report/formatCount.js';
+
+/** A whole number with thousands separators: 12,345 (the same grouping as the HTML report). */
 export function count(n: number): string {
-  return n.toLocaleString('en-US');
+  return formatCount(n);
 }
 
 /** A share as a percentage with two decimals: 3.25 %. */
