@@ -41,6 +41,7 @@ export type LexlockErrorCode =
   | 'IO'
   | 'NPY_SHAPE'
   | 'WRITER_CLOSED'
+  | 'MEMORY_LIMIT'
   | 'USAGE_UNKNOWN_FLAG'
   | 'USAGE_BAD_VALUE'
   | 'USAGE_MISSING'

@@ -43,11 +43,20 @@ export class Tally {
 
   /** Counts one document's tokens (already tokenized under `this.rules`). */
   addTokens(tokens: readonly string[], label?: string): this {
+    return this.addSome(tokens, label, null);
+  }
+
+  /**
+   * Counts one document (documents, tokens, length, label) but keeps per-token counts only for the
+   * tokens `keep` accepts (null: all), for a second pass that counts known candidates exactly.
+   */
+  addSome(tokens: readonly string[], label: string | undefined, keep: ReadonlySet<string> | null): this {
     this.documents += 1;
     this.tokens += tokens.length;
     this.lengths.set(tokens.length, (this.lengths.get(tokens.length) ?? 0) + 1);
     const seen = new Set<string>();
     for (const t of tokens) {
+      if (keep !== null && !keep.has(t)) continue;
       this.counts.set(t, (this.counts.get(t) ?? 0) + 1);
       if (!seen.has(t)) {
         seen.add(t);
