@@ -1,6 +1,9 @@
 import type { Lexicon } from '../lexicon/Lexicon.js';
 import { shapeInto, type Shape } from '../lexicon/Shape.js';
+import { serializeLexicon } from '../artifact/serializeLexicon.js';
 import type { LabelledText } from '../tally/Tally.js';
+import { batchesOf, inOrder } from '../workers/batches.js';
+import { WorkerPool } from '../workers/WorkerPool.js';
 
 /** Receives encoded rows in corpus order. */
 export interface RowSink {
@@ -25,23 +28,18 @@ export interface EncodeStats {
   labelled: number;
 }
 
-/**
- * Encodes a stream of documents with a lexicon, row by row, into a sink: the same tokenize and id
- * path as `Lexicon.encode`, holding one row at a time.
- */
-export async function encodeCorpus(
-  documents: AsyncIterable<string | LabelledText> | Iterable<string | LabelledText>,
-  lexicon: Lexicon,
-  shape: Shape | null,
-  sink: RowSink,
-): Promise<EncodeStats> {
+/** Options of {@link encodeCorpus}. */
+export interface EncodeCorpusOptions {
+  /** Worker threads to tokenize on (default 1: this thread). Rows and their order are the same for any count. */
+  threads?: number;
+}
+
+/** Shapes one document's ids into the sink and counts what encoding it cost. */
+function rowWriter(lexicon: Lexicon, shape: Shape | null, sink: RowSink) {
   const stats: EncodeStats = { documents: 0, tokens: 0, oovTokens: 0, truncatedDocuments: 0, droppedTokens: 0, unknownLabels: 0, labelled: 0 };
   const shaped = shape === null ? null : new Int32Array(shape.length);
   const labels = new Map(lexicon.labels.map((l, i) => [l, i]));
-  for await (const doc of documents) {
-    const text = typeof doc === 'string' ? doc : doc.text;
-    const label = typeof doc === 'string' ? undefined : doc.label;
-    const ids = lexicon.idsOf(lexicon.tokenize(text));
+  async function write(ids: Int32Array, label: string | undefined): Promise<void> {
     stats.documents += 1;
     stats.tokens += ids.length;
     for (let i = 0; i < ids.length; i++) if (ids[i] === lexicon.oovId) stats.oovTokens += 1;
@@ -53,7 +51,7 @@ export async function encodeCorpus(
     }
     if (shape === null || shaped === null) {
       await sink.row(ids, ids.length, labelId);
-      continue;
+      return;
     }
     if (ids.length > shape.length) {
       stats.truncatedDocuments += 1;
@@ -62,6 +60,49 @@ export async function encodeCorpus(
     shaped.fill(0);
     const kept = shapeInto(ids, shape, shaped, 0);
     await sink.row(shaped, kept, labelId);
+  }
+  return { stats, write };
+}
+
+/**
+ * Encodes a stream of documents with a lexicon, row by row, into a sink: the same tokenize and id
+ * path as `Lexicon.encode`, holding one row (or, with threads, a few batches) at a time.
+ */
+export async function encodeCorpus(
+  documents: AsyncIterable<string | LabelledText> | Iterable<string | LabelledText>,
+  lexicon: Lexicon,
+  shape: Shape | null,
+  sink: RowSink,
+  options: EncodeCorpusOptions = {},
+): Promise<EncodeStats> {
+  const { stats, write } = rowWriter(lexicon, shape, sink);
+  const threads = options.threads ?? 1;
+  if (threads <= 1) {
+    for await (const doc of documents) {
+      const text = typeof doc === 'string' ? doc : doc.text;
+      await write(lexicon.idsOf(lexicon.tokenize(text)), typeof doc === 'string' ? undefined : doc.label);
+    }
+    return stats;
+  }
+  const pool = WorkerPool.start({ kind: 'encode', lexicon: serializeLexicon(lexicon) }, threads);
+  try {
+    await inOrder(
+      batchesOf(documents),
+      (b) => pool.submit(b),
+      async (batch, reply) => {
+        if (!('encoded' in reply)) return;
+        const { ids, lengths } = reply.encoded;
+        let at = 0;
+        for (let i = 0; i < lengths.length; i++) {
+          const n = lengths[i] as number;
+          await write(ids.subarray(at, at + n), batch.labels[i] ?? undefined);
+          at += n;
+        }
+      },
+      threads * 2,
+    );
+  } finally {
+    await pool.close();
   }
   return stats;
 }

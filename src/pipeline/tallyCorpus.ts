@@ -1,5 +1,7 @@
 import type { TextRules } from '../rules/TextRules.js';
 import { Tally, type LabelledText } from '../tally/Tally.js';
+import { batchesOf, inOrder } from '../workers/batches.js';
+import { WorkerPool } from '../workers/WorkerPool.js';
 
 /** How many corpus snippets a lexicon keeps as canaries, and how long each may be. */
 const SNIPPETS = 3;
@@ -11,19 +13,55 @@ export interface CorpusTally {
   snippets: string[];
 }
 
+/** Options of {@link tallyCorpus}. */
+export interface TallyCorpusOptions {
+  /** Worker threads to tokenize on (default 1: this thread). The tally is the same for any count. */
+  threads?: number;
+}
+
+/** Keeps the first few short, non-blank documents, in corpus order. */
+function snippetKeeper(): { snippets: string[]; see: (text: string) => void } {
+  const snippets: string[] = [];
+  return {
+    snippets,
+    see(text) {
+      if (snippets.length < SNIPPETS && text.length <= SNIPPET_CHARS && /\S/.test(text) && !snippets.includes(text)) snippets.push(text);
+    },
+  };
+}
+
 /**
  * Tallies a stream of documents (a corpus reader, or any async iterable of texts) under `rules`,
- * holding only the counts, and keeps the first few short documents as canary snippets.
+ * holding only the counts, and keeps the first few short documents as canary snippets. With
+ * `threads` > 1 the documents are tokenized in worker threads in batches; the result is identical.
  */
-export async function tallyCorpus(documents: AsyncIterable<string | LabelledText> | Iterable<string | LabelledText>, rules: TextRules): Promise<CorpusTally> {
+export async function tallyCorpus(
+  documents: AsyncIterable<string | LabelledText> | Iterable<string | LabelledText>,
+  rules: TextRules,
+  options: TallyCorpusOptions = {},
+): Promise<CorpusTally> {
   const tally = new Tally(rules);
-  const snippets: string[] = [];
-  for await (const doc of documents) {
-    const tokens = tally.add(doc);
-    if (snippets.length < SNIPPETS) {
-      const text = typeof doc === 'string' ? doc : doc.text;
-      if (text.length <= SNIPPET_CHARS && tokens.length > 0 && !snippets.includes(text)) snippets.push(text);
+  const keeper = snippetKeeper();
+  const threads = options.threads ?? 1;
+  if (threads <= 1) {
+    for await (const doc of documents) {
+      tally.add(doc);
+      keeper.see(typeof doc === 'string' ? doc : doc.text);
     }
+    return { tally, snippets: keeper.snippets };
   }
-  return { tally, snippets };
+  const pool = WorkerPool.start({ kind: 'tally', rules }, threads);
+  try {
+    await inOrder(
+      batchesOf(documents, keeper.see),
+      (b) => pool.submit(b),
+      (_b, reply) => {
+        if ('tally' in reply) tally.mergeCounts(reply.tally);
+      },
+      threads * 2,
+    );
+  } finally {
+    await pool.close();
+  }
+  return { tally, snippets: keeper.snippets };
 }

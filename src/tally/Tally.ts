@@ -15,6 +15,16 @@ export interface LabelCounts {
   tokens: number;
 }
 
+/** The counts of a tally without its rules: what a worker thread sends back. */
+export interface TallyCounts {
+  readonly documents: number;
+  readonly tokens: number;
+  readonly counts: ReadonlyMap<string, number>;
+  readonly documentFrequency: ReadonlyMap<string, number>;
+  readonly lengths: ReadonlyMap<number, number>;
+  readonly labels: ReadonlyMap<string, LabelCounts>;
+}
+
 /**
  * Counts over a corpus (encoding contract, rule 3): occurrences and document frequency per token,
  * tokens per document, documents and tokens per label. Tallies made under the same rules merge by
@@ -89,6 +99,14 @@ export class Tally {
         { field: 'rules' },
       );
     }
+    return this.mergeCounts(other);
+  }
+
+  /**
+   * Adds counts made elsewhere under this tally's rules, such as a worker thread's tally of a batch
+   * (the parts survive structured cloning). The caller vouches for the rules; prefer `merge`.
+   */
+  mergeCounts(other: TallyCounts): this {
     this.documents += other.documents;
     this.tokens += other.tokens;
     addInto(this.counts, other.counts);

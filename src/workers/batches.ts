@@ -1,0 +1,52 @@
+import type { LabelledText } from '../tally/Tally.js';
+import type { Batch } from './messages.js';
+
+/** Documents a batch holds at most, and characters. */
+const BATCH_DOCUMENTS = 2000;
+const BATCH_CHARS = 2_000_000;
+
+/**
+ * Groups a stream of documents into numbered batches for worker threads, calling `each` on every
+ * document in order on the way (the main thread keeps what needs corpus order, such as snippets).
+ */
+export async function* batchesOf(
+  documents: AsyncIterable<string | LabelledText> | Iterable<string | LabelledText>,
+  each: (text: string) => void = () => undefined,
+): AsyncGenerator<Batch> {
+  let batch: Batch = { id: 0, texts: [], labels: [] };
+  let chars = 0;
+  for await (const doc of documents) {
+    const text = typeof doc === 'string' ? doc : doc.text;
+    each(text);
+    batch.texts.push(text);
+    batch.labels.push(typeof doc === 'string' ? null : (doc.label ?? null));
+    chars += text.length;
+    if (batch.texts.length >= BATCH_DOCUMENTS || chars >= BATCH_CHARS) {
+      yield batch;
+      batch = { id: batch.id + 1, texts: [], labels: [] };
+      chars = 0;
+    }
+  }
+  if (batch.texts.length > 0) yield batch;
+}
+
+/**
+ * Sends batches to `submit` with at most `inFlight` outstanding and hands each reply to `take` in
+ * batch order, so results never depend on which thread finished first.
+ */
+export async function inOrder<R>(batches: AsyncIterable<Batch>, submit: (b: Batch) => Promise<R>, take: (b: Batch, r: R) => Promise<void> | void, inFlight: number): Promise<void> {
+  const pending: Array<[Batch, Promise<R>]> = [];
+  for await (const b of batches) {
+    const p = submit(b);
+    p.catch(() => undefined); // awaited below, in order; this only keeps an early failure from going unhandled
+    pending.push([b, p]);
+    while (pending.length >= inFlight) {
+      const [head, promise] = pending.shift() as [Batch, Promise<R>];
+      await take(head, await promise);
+    }
+  }
+  while (pending.length > 0) {
+    const [head, promise] = pending.shift() as [Batch, Promise<R>];
+    await take(head, await promise);
+  }
+}

@@ -1,0 +1,37 @@
+import { describe, expect, it } from 'vitest';
+import { serializeLexicon } from '../../src/artifact/serializeLexicon.js';
+import { readCorpus } from '../../src/corpus/readCorpus.js';
+import { freeze } from '../../src/lexicon/freeze.js';
+import { encodeCorpus } from '../../src/pipeline/encodeCorpus.js';
+import { tallyCorpus } from '../../src/pipeline/tallyCorpus.js';
+import { resolveRules } from '../../src/rules/TextRules.js';
+
+const demo = new URL('../../corpora-demo/ferry-messages.csv', import.meta.url).pathname;
+const rules = resolveRules();
+
+describe('worker threads', () => {
+  it('tally to the same lexicon, byte for byte apart from the build time, on 1, 2 and 3 threads', async () => {
+    const texts: string[] = [];
+    for (const threads of [1, 2, 3]) {
+      const { tally, snippets } = await tallyCorpus(readCorpus(demo, { label: 'topic' }), rules, { threads });
+      const lexicon = freeze(tally, { cap: 1500, snippets, now: new Date(0) });
+      texts.push(serializeLexicon(lexicon));
+    }
+    expect(texts[1]).toBe(texts[0]);
+    expect(texts[2]).toBe(texts[0]);
+  });
+
+  it('encode the same rows in the same order on 1 and 2 threads', async () => {
+    const { tally } = await tallyCorpus(readCorpus(demo, { label: 'topic' }), rules);
+    const lexicon = freeze(tally, { cap: 800 });
+    const shape = { length: 32, pad: 'pre', cut: 'post' } as const;
+    const runs: Array<{ rows: number[][]; stats: unknown }> = [];
+    for (const threads of [1, 2]) {
+      const rows: number[][] = [];
+      const stats = await encodeCorpus(readCorpus(demo, { label: 'topic' }), lexicon, shape, { row: (ids, kept, label) => void rows.push([...ids, kept, label ?? -2]) }, { threads });
+      runs.push({ rows, stats });
+    }
+    expect(runs[0]!.rows).toHaveLength(4000);
+    expect(runs[1]).toEqual(runs[0]);
+  });
+});
