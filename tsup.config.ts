@@ -7,10 +7,13 @@ export default defineConfig([
     dts: true,
     sourcemap: true,
     clean: true,
+    // import.meta.url in the CommonJS build, so worker threads find dist/worker.js from either build.
+    shims: true,
     target: 'node20',
   },
   {
-    entry: { bin: 'src/bin.ts' },
+    // The executable and the worker-thread entry it (and dist/node.*) start: dist/bin.js, dist/worker.js.
+    entry: { bin: 'src/bin.ts', worker: 'src/workers/worker.ts' },
     format: ['esm'],
     sourcemap: true,
     target: 'node20',

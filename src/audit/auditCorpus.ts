@@ -2,8 +2,9 @@ import type { Lexicon } from '../lexicon/Lexicon.js';
 import { rankTokens } from '../lexicon/rankTokens.js';
 import type { Shape } from '../lexicon/Shape.js';
 import { summarizeLengths } from '../tally/nearestRank.js';
-import { Tally, type LabelledText } from '../tally/Tally.js';
-import type { CoverageReport, LabelAudit, TokenCount } from './CoverageReport.js';
+import type { LabelledText } from '../tally/Tally.js';
+import { AuditCounts } from './AuditCounts.js';
+import type { CoverageReport, TokenCount } from './CoverageReport.js';
 import { coverageCurve } from './coverageCurve.js';
 import { drift } from './drift.js';
 import { suggest } from './suggest.js';
@@ -31,39 +32,18 @@ export async function auditCorpus(
   options: AuditOptions = {},
 ): Promise<CoverageReport> {
   const shape = options.shape === undefined ? lexicon.shape : options.shape;
-  const length = shape === null ? null : shape.length;
-  const tally = new Tally(lexicon.rules);
-  const labels = new Map<string, LabelAudit>();
-  let oovTokens = 0;
-  let truncatedDocuments = 0;
-  let droppedTokens = 0;
-  let paddingTokens = 0;
+  const counts = new AuditCounts(lexicon, shape === null ? null : shape.length);
   for await (const doc of documents) {
-    const text = typeof doc === 'string' ? doc : doc.text;
-    const label = typeof doc === 'string' ? undefined : doc.label;
-    const tokens = lexicon.tokenize(text);
-    const ids = lexicon.idsOf(tokens);
-    tally.addTokens(tokens, label);
-    let oov = 0;
-    for (let i = 0; i < ids.length; i++) if (ids[i] === lexicon.oovId) oov += 1;
-    oovTokens += oov;
-    const cut = length !== null && ids.length > length;
-    if (length !== null) {
-      if (cut) {
-        truncatedDocuments += 1;
-        droppedTokens += ids.length - length;
-      } else paddingTokens += length - ids.length;
-    }
-    if (label !== undefined) {
-      const l = labels.get(label) ?? { documents: 0, tokens: 0, oovTokens: 0, truncatedDocuments: 0 };
-      l.documents += 1;
-      l.tokens += ids.length;
-      l.oovTokens += oov;
-      if (cut) l.truncatedDocuments += 1;
-      labels.set(label, l);
-    }
+    if (typeof doc === 'string') counts.add(doc, undefined);
+    else counts.add(doc.text, doc.label);
   }
+  return auditReport(counts, lexicon, options);
+}
 
+/** The report from an audit's counts (made here, or merged from threads). */
+export function auditReport(counts: AuditCounts, lexicon: Lexicon, options: AuditOptions = {}): CoverageReport {
+  const shape = options.shape === undefined ? lexicon.shape : options.shape;
+  const { tally, labels, oovTokens, truncatedDocuments, droppedTokens, paddingTokens } = counts;
   const ranked = rankTokens(tally.counts);
   const rankedCounts = ranked.map(([, n]) => n);
   const chosenCap = lexicon.encoding.tokens.length - lexicon.encoding.layout.reserved;

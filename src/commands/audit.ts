@@ -1,4 +1,3 @@
-import { auditCorpus } from '../audit/auditCorpus.js';
 import type { CoverageReport } from '../audit/CoverageReport.js';
 import { renderReport } from '../audit/report/renderReport.js';
 import { readCorpus } from '../corpus/readCorpus.js';
@@ -8,6 +7,7 @@ import { assertWritable } from '../files/refuseOverwrite.js';
 import { freeze } from '../lexicon/freeze.js';
 import type { Lexicon } from '../lexicon/Lexicon.js';
 import { LexlockError } from '../LexlockError.js';
+import { auditOnThreads } from '../pipeline/auditOnThreads.js';
 import { tallyCorpus } from '../pipeline/tallyCorpus.js';
 import { VERSION } from '../version.js';
 import { auditSummary, crossedGates, type Gates } from './auditSummary.js';
@@ -16,7 +16,7 @@ import { corpusBytes } from './corpusBytes.js';
 import type { Io } from './Io.js';
 import { parseArgs, positionals, valueOf, wholeNumberFlag, type ParsedArgs } from './parseArgs.js';
 import { createProgress } from './progress.js';
-import { CORPUS_FLAGS, RULE_FLAGS, SHAPE_FLAGS, corpusOptions, rulesFromFlags, shapeFromFlags } from './sharedFlags.js';
+import { CORPUS_FLAGS, RULE_FLAGS, SHAPE_FLAGS, corpusOptions, rulesFromFlags, shapeFromFlags, threadsFlag } from './sharedFlags.js';
 
 /** `lexlock audit --help`. */
 export const AUDIT_HELP = `lexlock audit <corpus> (--lexicon <lexicon.json> | --cap N) [options]
@@ -36,6 +36,7 @@ per label, the caps and lengths that would cover 90/95/99 %, the most frequent O
   --report FILE.html    also write a self-contained HTML page with the charts (--force to overwrite)
   --max-oov R           exit 3 when the OOV rate is above R (a share such as 0.05, or 5%)
   --max-truncated R     exit 3 when the share of truncated documents is above R
+  --threads N           worker threads (default: the machine's cores from 8 MiB of corpus); the report is the same for any N
   -q, --quiet           no progress on stderr
 `;
 
@@ -91,6 +92,7 @@ export async function audit(argv: readonly string[], io: Io): Promise<number> {
   const reportPath = valueOf(args, 'report');
   if (reportPath !== undefined) await assertWritable(reportPath, args.switches.has('force'));
   const quiet = args.switches.has('quiet');
+  const threads = threadsFlag(args, await corpusBytes(corpus));
   const totalBytes = await corpusBytes(corpus);
 
   let lexicon: Lexicon;
@@ -105,7 +107,7 @@ export async function audit(argv: readonly string[], io: Io): Promise<number> {
     const rules = rulesFromFlags(args);
     const counting = createProgress(io, 'audit 1/2 counting', { quiet, totalBytes });
     try {
-      const { tally } = await tallyCorpus(readCorpus(corpus, { ...options, onProgress: (p) => counting.update(p) }), rules);
+      const { tally } = await tallyCorpus(readCorpus(corpus, { ...options, onProgress: (p) => counting.update(p) }), rules, { threads });
       lexicon = freeze(tally, { cap: cap ?? null, minCount: wholeNumberFlag(args, 'min-count', 1) ?? 1, shape: flagShape });
     } finally {
       counting.done();
@@ -116,7 +118,7 @@ export async function audit(argv: readonly string[], io: Io): Promise<number> {
   const reader = readCorpus(corpus, { ...options, onProgress: (p) => progress.update(p) });
   let report: CoverageReport;
   try {
-    report = await auditCorpus(reader, lexicon, { shape, drift: lexiconPath !== undefined });
+    report = await auditOnThreads(reader, lexicon, { shape, drift: lexiconPath !== undefined, threads });
   } finally {
     progress.done();
   }

@@ -9,7 +9,7 @@ import type { Io } from './Io.js';
 import { parseArgs, positionals, valueOf, wholeNumberFlag } from './parseArgs.js';
 import { corpusBytes } from './corpusBytes.js';
 import { createProgress } from './progress.js';
-import { CORPUS_FLAGS, RULE_FLAGS, SHAPE_FLAGS, corpusOptions, rulesFromFlags, shapeFromFlags } from './sharedFlags.js';
+import { CORPUS_FLAGS, RULE_FLAGS, SHAPE_FLAGS, corpusOptions, rulesFromFlags, shapeFromFlags, threadsFlag } from './sharedFlags.js';
 
 /** `lexlock build --help`. */
 export const BUILD_HELP = `lexlock build <corpus> -o <lexicon.json> [options]
@@ -31,6 +31,7 @@ Counts the tokens of a corpus and writes a fingerprinted lexicon file.
   --label FIELD         label column or member (folders: the first folder is the label)
   --bad-text fail|replace|skip   what to do with invalid UTF-8 (default fail)
   --force               overwrite an existing lexicon file
+  --threads N           worker threads (default: the machine's cores from 8 MiB of corpus); the lexicon is the same for any N
   -q, --quiet           no progress on stderr
 `;
 
@@ -70,7 +71,7 @@ export async function build(argv: readonly string[], io: Io): Promise<number> {
   const reader = readCorpus(corpus, { ...options, onProgress: (p) => progress.update(p) });
   let result;
   try {
-    result = await tallyCorpus(reader, rules);
+    result = await tallyCorpus(reader, rules, { threads: threadsFlag(args, await corpusBytes(corpus)) });
   } finally {
     progress.done();
   }

@@ -15,7 +15,7 @@ import type { Io } from './Io.js';
 import { parseArgs, positionals, valueOf } from './parseArgs.js';
 import { corpusBytes } from './corpusBytes.js';
 import { createProgress } from './progress.js';
-import { CORPUS_FLAGS, SHAPE_FLAGS, corpusOptions, shapeFromFlags } from './sharedFlags.js';
+import { CORPUS_FLAGS, SHAPE_FLAGS, corpusOptions, shapeFromFlags, threadsFlag } from './sharedFlags.js';
 
 /** `lexlock encode --help`. */
 export const ENCODE_HELP = `lexlock encode <corpus> --lexicon <lexicon.json> -o <out> [options]
@@ -30,6 +30,7 @@ Turns every document into ids with a lexicon, in corpus order.
   --label FIELD         label column or member (default: as the lexicon was built)
   --bad-text fail|replace|skip   what to do with invalid UTF-8 (default fail)
   --force               overwrite existing output
+  --threads N           worker threads (default: the machine's cores from 8 MiB of corpus); the output is the same for any N
   -q, --quiet           no progress on stderr
 `;
 
@@ -166,7 +167,7 @@ export async function encode(argv: readonly string[], io: Io): Promise<number> {
   const sink = jsonl ? await jsonlOutput(output) : await npyOutput(output, shape as Shape, manifest);
   let stats: EncodeStats;
   try {
-    stats = await encodeCorpus(reader, lexicon, shape, sink);
+    stats = await encodeCorpus(reader, lexicon, shape, sink, { threads: threadsFlag(args, await corpusBytes(corpus)) });
     await sink.finish(stats);
   } catch (e) {
     await sink.abort();

@@ -1,6 +1,7 @@
 import { resolveRules, TOKEN_TYPES, type TextRules } from '../rules/TextRules.js';
 import type { Shape } from '../lexicon/Shape.js';
 import { LexlockError } from '../LexlockError.js';
+import { defaultThreads } from '../workers/WorkerPool.js';
 import { choiceFlag, listFlag, valueOf, wholeNumberFlag, type FlagSpec, type ParsedArgs } from './parseArgs.js';
 
 /** Flags every command that reads a corpus takes. */
@@ -9,7 +10,21 @@ export const CORPUS_FLAGS: Record<string, FlagSpec> = {
   label: { kind: 'value' },
   'bad-text': { kind: 'value' },
   quiet: { kind: 'switch', short: 'q' },
+  threads: { kind: 'value' },
 };
+
+/** Below this corpus size, starting worker threads costs more than it saves. */
+const THREADS_FROM_BYTES = 8 * 2 ** 20;
+
+/**
+ * --threads N; without it, the machine's available parallelism for corpora of 8 MiB and more (or of
+ * unknown size, such as folders) and one thread for smaller files. Output is the same either way.
+ */
+export function threadsFlag(args: ParsedArgs, corpusBytes: number | null): number {
+  const given = wholeNumberFlag(args, 'threads', 1);
+  if (given !== undefined) return given;
+  return corpusBytes !== null && corpusBytes < THREADS_FROM_BYTES ? 1 : defaultThreads();
+}
 
 /** Flags that fix the text rules. */
 export const RULE_FLAGS: Record<string, FlagSpec> = {

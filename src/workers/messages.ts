@@ -1,8 +1,12 @@
+import type { AuditParts } from '../audit/AuditCounts.js';
 import type { TallyCounts } from '../tally/Tally.js';
 import type { TextRules } from '../rules/TextRules.js';
 
-/** What a worker is started with: the rules to tally under, or the lexicon file text to encode with. */
-export type WorkerSetup = { kind: 'tally'; rules: TextRules } | { kind: 'encode'; lexicon: string };
+/** What a worker is started with: the rules to tally under, or the lexicon file text to encode or audit with. */
+export type WorkerSetup =
+  | { kind: 'tally'; rules: TextRules }
+  | { kind: 'encode'; lexicon: string }
+  | { kind: 'audit'; lexicon: string; length: number | null };
 
 /** A batch of documents sent to a worker. */
 export interface Batch {
@@ -21,4 +25,8 @@ export interface EncodedBatch {
 }
 
 /** A worker's answer for batch `id`. */
-export type WorkerReply = { id: number; tally: TallyParts } | { id: number; encoded: EncodedBatch } | { id: number; error: { message: string; code?: string } };
+export type WorkerReply =
+  | { id: number; tally: TallyParts }
+  | { id: number; encoded: EncodedBatch }
+  | { id: number; audit: AuditParts }
+  | { id: number; error: { message: string; code?: string } };

@@ -1,12 +1,13 @@
 // A worker thread: tallies or encodes batches of documents with the same code as the main thread.
 import { parentPort, workerData } from 'node:worker_threads';
 import { parseLexicon } from '../artifact/parseLexicon.js';
+import { AuditCounts } from '../audit/AuditCounts.js';
 import { isLexlockError } from '../LexlockError.js';
 import { Tally } from '../tally/Tally.js';
 import type { Batch, WorkerReply, WorkerSetup } from './messages.js';
 
 const setup = workerData as WorkerSetup;
-const lexicon = setup.kind === 'encode' ? parseLexicon(setup.lexicon, { checkCanaries: false }) : null;
+const lexicon = setup.kind === 'tally' ? null : parseLexicon(setup.lexicon, { checkCanaries: false });
 
 function handle(batch: Batch): WorkerReply {
   if (lexicon === null) {
@@ -15,6 +16,11 @@ function handle(batch: Batch): WorkerReply {
     batch.texts.forEach((text, i) => tally.add({ text, label: batch.labels[i] ?? undefined }));
     const { documents, tokens, counts, documentFrequency, lengths, labels } = tally;
     return { id: batch.id, tally: { documents, tokens, counts, documentFrequency, lengths, labels } };
+  }
+  if (setup.kind === 'audit') {
+    const counts = new AuditCounts(lexicon, setup.length);
+    batch.texts.forEach((text, i) => counts.add(text, batch.labels[i] ?? undefined));
+    return { id: batch.id, audit: counts.parts() };
   }
   const rows = batch.texts.map((text) => lexicon.idsOf(lexicon.tokenize(text)));
   let total = 0;

@@ -35,3 +35,15 @@ describe('worker threads', () => {
     expect(runs[1]).toEqual(runs[0]);
   });
 });
+
+describe('audit on worker threads', () => {
+  it('gives the same report on 1 and 2 threads', async () => {
+    const { auditOnThreads } = await import('../../src/pipeline/auditOnThreads.js');
+    const { tally } = await tallyCorpus(readCorpus(demo, { label: 'topic' }), rules);
+    const lexicon = freeze(tally, { cap: 600, shape: { length: 40, pad: 'post', cut: 'post' } });
+    const one = await auditOnThreads(readCorpus(demo, { label: 'topic' }), lexicon, { threads: 1 });
+    const two = await auditOnThreads(readCorpus(demo, { label: 'topic' }), lexicon, { threads: 2 });
+    expect(one.oovTokens).toBeGreaterThan(0);
+    expect(JSON.stringify(two)).toBe(JSON.stringify(one));
+  });
+});

@@ -1,0 +1,45 @@
+import { loadTally } from '../files/loadTally.js';
+import { saveTally } from '../files/saveTally.js';
+import { assertWritable } from '../files/refuseOverwrite.js';
+import { tallyFileMerge, type NamedTallyFile } from '../tally/tallyFileMerge.js';
+import { LexlockError } from '../LexlockError.js';
+import type { Io } from './Io.js';
+import { parseArgs, valueOf } from './parseArgs.js';
+import { assertTallyName, describeTallyFile } from './tally.js';
+
+/** `lexlock merge --help`. */
+export const MERGE_HELP = `lexlock merge <part.tally>... -o <all.tally> [--force]
+
+Adds up tally files counted under the same rules into one; the order and grouping do not matter.
+
+  -o, --output FILE     where to write the merged tally; must end in .tally (refused if it exists, unless --force)
+  --force               overwrite an existing tally file
+  -q, --quiet           accepted for symmetry with tally; merge prints no progress
+`;
+
+/** `lexlock merge`: tally files -> one tally file. */
+export async function merge(argv: readonly string[], io: Io): Promise<number> {
+  const args = parseArgs('merge', argv, {
+    output: { kind: 'value', short: 'o' },
+    force: { kind: 'switch' },
+    quiet: { kind: 'switch', short: 'q' },
+  });
+  const inputs = args.positionals;
+  if (inputs.length === 0) throw new LexlockError('USAGE_MISSING', 'expected <part.tally>..., got none; see lexlock merge --help', {});
+  const output = valueOf(args, 'output');
+  if (output === undefined) throw new LexlockError('USAGE_MISSING', '-o/--output is required: where should the merged tally go?', { field: '--output' });
+  assertTallyName(output);
+  const twice = inputs.find((p, i) => inputs.indexOf(p) !== i);
+  if (twice !== undefined) throw new LexlockError('USAGE_BAD_VALUE', `${twice} is named twice; name each part once, or its counts would be added twice`, { file: twice });
+  const force = args.switches.has('force');
+  await assertWritable(output, force);
+
+  const first = inputs[0] as string;
+  let merged: NamedTallyFile = { name: first, file: await loadTally(first) };
+  for (const path of inputs.slice(1)) {
+    merged = { name: merged.name, file: tallyFileMerge([merged, { name: path, file: await loadTally(path) }]) };
+  }
+  await saveTally(output, merged.file, { force });
+  io.stdout.write(describeTallyFile(output, merged.file));
+  return 0;
+}

@@ -1,0 +1,38 @@
+import { serializeLexicon } from '../artifact/serializeLexicon.js';
+import { AuditCounts } from '../audit/AuditCounts.js';
+import { auditCorpus, auditReport, type AuditOptions } from '../audit/auditCorpus.js';
+import type { CoverageReport } from '../audit/CoverageReport.js';
+import type { Lexicon } from '../lexicon/Lexicon.js';
+import type { LabelledText } from '../tally/Tally.js';
+import { batchesOf, inOrder } from '../workers/batches.js';
+import { WorkerPool } from '../workers/WorkerPool.js';
+
+/**
+ * `auditCorpus` on worker threads: each thread counts batches with the same AuditCounts, the counts
+ * are merged and the report made once, so it is the same report as on one thread.
+ */
+export async function auditOnThreads(
+  documents: AsyncIterable<string | LabelledText> | Iterable<string | LabelledText>,
+  lexicon: Lexicon,
+  options: AuditOptions & { threads?: number } = {},
+): Promise<CoverageReport> {
+  const threads = options.threads ?? 1;
+  if (threads <= 1) return auditCorpus(documents, lexicon, options);
+  const shape = options.shape === undefined ? lexicon.shape : options.shape;
+  const length = shape === null ? null : shape.length;
+  const counts = new AuditCounts(lexicon, length);
+  const pool = WorkerPool.start({ kind: 'audit', lexicon: serializeLexicon(lexicon), length }, threads);
+  try {
+    await inOrder(
+      batchesOf(documents),
+      (b) => pool.submit(b),
+      (_b, reply) => {
+        if ('audit' in reply) counts.merge(reply.audit);
+      },
+      threads * 2,
+    );
+  } finally {
+    await pool.close();
+  }
+  return auditReport(counts, lexicon, options);
+}
