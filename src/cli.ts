@@ -3,6 +3,8 @@ import { audit, AUDIT_HELP } from './commands/audit.js';
 import { build, BUILD_HELP } from './commands/build.js';
 import { compare, COMPARE_HELP } from './commands/compare.js';
 import { encode, ENCODE_HELP } from './commands/encode.js';
+import { merge, MERGE_HELP } from './commands/merge.js';
+import { tally, TALLY_HELP } from './commands/tally.js';
 import type { Io } from './commands/Io.js';
 import { verify, VERIFY_HELP } from './commands/verify.js';
 import { VERSION } from './version.js';
@@ -16,6 +18,8 @@ const COMMANDS: Record<string, { run: (argv: readonly string[], io: Io) => Promi
   verify: { run: verify, help: VERIFY_HELP },
   audit: { run: audit, help: AUDIT_HELP },
   compare: { run: compare, help: COMPARE_HELP },
+  tally: { run: tally, help: TALLY_HELP },
+  merge: { run: merge, help: MERGE_HELP },
 };
 
 /** `lexlock --help`. */
@@ -26,6 +30,8 @@ export const MAIN_HELP = `lexlock ${VERSION}: one fingerprinted lexicon file for
   lexlock verify <lexicon.json>                   check schema, fingerprint and canaries
   lexlock audit <corpus> --lexicon <file> | --cap N  what a cap and a length cost; drift; --report page
   lexlock compare <a.json> <b.json>               two lexicons side by side
+  lexlock tally <corpus part> -o <part.tally>     count one part of a corpus, anywhere
+  lexlock merge <part.tally>... -o <all.tally>    add up tallies; then lexlock build all.tally
 
 Corpora: .csv, .tsv, .jsonl/.ndjson, .txt (a document a line), or a folder (a document a file).
 Run lexlock <command> --help for a command's flags.

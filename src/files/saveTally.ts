@@ -1,0 +1,42 @@
+import { mkdir } from 'node:fs/promises';
+import { dirname } from 'node:path';
+import type { TallyFile } from '../tally/tallyFile.js';
+import { tallyFileLines } from '../tally/tallyFileText.js';
+import { openAtomic } from './atomicWrite.js';
+import { assertWritable } from './refuseOverwrite.js';
+
+/** Options of {@link saveTally}. */
+export interface SaveTallyOptions {
+  /** Replace an existing file (default false: refuse with OUTPUT_EXISTS). */
+  force?: boolean;
+}
+
+/** Bytes gathered before each write. */
+const CHUNK = 1 << 16;
+
+/**
+ * Writes a tally file atomically (temporary file in the same folder, fsync, rename), line by line
+ * as it is produced, so a large vocabulary is never one string. Missing parent folders are created.
+ * @example await saveTally('part-1.tally', { tally, snippets, fields: { text: 'text', label: null } });
+ */
+export async function saveTally(path: string, file: TallyFile, options: SaveTallyOptions = {}): Promise<void> {
+  await assertWritable(path, options.force ?? false);
+  await mkdir(dirname(path), { recursive: true });
+  const out = await openAtomic(path);
+  const encoder = new TextEncoder();
+  try {
+    let pending = '';
+    for (const line of tallyFileLines(file)) {
+      pending += line;
+      if (pending.length >= CHUNK) {
+        await out.write(encoder.encode(pending));
+        pending = '';
+      }
+    }
+    if (pending !== '') await out.write(encoder.encode(pending));
+    await out.commit();
+  } catch (e) {
+    await out.abort();
+    throw e;
+  }
+}

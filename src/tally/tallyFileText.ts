@@ -1,0 +1,49 @@
+import { TALLY_FORMAT, TALLY_FORMAT_VERSION } from '../artifact/tallySchema.js';
+import { TALLY_SNIPPETS, tallyFileOrder, type TallyFile } from './tallyFile.js';
+
+function entries(name: string, rows: readonly unknown[], last: boolean): string[] {
+  const end = last ? '' : ',';
+  if (rows.length === 0) return [`  ${JSON.stringify(name)}: []${end}\n`];
+  return [`  ${JSON.stringify(name)}: [\n`, ...rows.map((r, i) => `    ${JSON.stringify(r)}${i < rows.length - 1 ? ',' : ''}\n`), `  ]${end}\n`];
+}
+
+/**
+ * The tally file's text, line by line (each line ends in `\n`), for writing as it is produced:
+ * the small members first, then `counts` with one `[token, occurrences, documents]` a line.
+ * Deterministic: tokens, labels and snippets in JavaScript string order, lengths ascending, so two
+ * tallies of the same documents give the same bytes. Browser-safe.
+ */
+export function* tallyFileLines(file: TallyFile): Generator<string> {
+  const { tally } = file;
+  const r = tally.rules;
+  const rules = { level: r.level, unicode: r.unicode, case: r.case, drop: r.drop, collapse: r.collapse, tokenizer: r.tokenizer };
+  yield '{\n';
+  yield `  "format": ${JSON.stringify(TALLY_FORMAT)},\n`;
+  yield `  "formatVersion": ${TALLY_FORMAT_VERSION},\n`;
+  yield `  "rules": ${JSON.stringify(rules)},\n`;
+  yield `  "fields": ${JSON.stringify({ text: file.fields.text, label: file.fields.label })},\n`;
+  yield `  "documents": ${tally.documents},\n`;
+  yield `  "tokens": ${tally.tokens},\n`;
+  yield `  "types": ${tally.counts.size},\n`;
+  yield* entries('lengths', [...tally.lengths].filter(([, n]) => n > 0).sort((a, b) => a[0] - b[0]), false);
+  const labels = [...tally.labels].sort((a, b) => tallyFileOrder(a[0], b[0])).map(([label, c]) => [label, c.documents, c.tokens]);
+  yield* entries('labels', labels, false);
+  yield* entries('snippets', [...new Set(file.snippets)].sort(tallyFileOrder).slice(0, TALLY_SNIPPETS), false);
+  const tokens = [...tally.counts.keys()].sort(tallyFileOrder);
+  yield `  "counts": [\n`;
+  for (let i = 0; i < tokens.length; i++) {
+    const t = tokens[i] as string;
+    yield `    ${JSON.stringify([t, tally.counts.get(t), tally.documentFrequency.get(t) ?? 0])}${i < tokens.length - 1 ? ',' : ''}\n`;
+  }
+  yield '  ]\n}\n';
+}
+
+/**
+ * The whole tally file as one string (see {@link tallyFileLines}); `tallyFileParse` reads it back.
+ * @example const text = tallyFileText({ tally, snippets: [], fields: { text: null, label: null } });
+ */
+export function tallyFileText(file: TallyFile): string {
+  let out = '';
+  for (const line of tallyFileLines(file)) out += line;
+  return out;
+}
