@@ -28,3 +28,8 @@ export type { CoverageReport, LabelAudit, TokenCount, Suggestions, Drift } from 
 export { renderReport, type ReportContext } from './audit/report/renderReport.js';
 export { compareLexicons, type CompareOptions } from './audit/compareLexicons.js';
 export type { LexiconComparison } from './audit/compare/LexiconComparison.js';
+export { tallyFileText } from './tally/tallyFileText.js';
+export { tallyFileParse } from './tally/tallyFileParse.js';
+export { tallyFileMerge, type NamedTallyFile } from './tally/tallyFileMerge.js';
+export type { TallyFile } from './tally/tallyFile.js';
+export { boundedTally, type BoundedTallyOptions } from './tally/boundedTally.js';

@@ -4,6 +4,10 @@ export { readCorpus, type CorpusDocument, type CorpusOptions, type CorpusReader,
 export { saveLexicon, type SaveLexiconOptions } from './files/saveLexicon.js';
 export { loadLexicon } from './files/loadLexicon.js';
 export { writeFileAtomic } from './files/atomicWrite.js';
-export { tallyCorpus, type CorpusTally } from './pipeline/tallyCorpus.js';
-export { encodeCorpus, type EncodeStats, type RowSink } from './pipeline/encodeCorpus.js';
+export { tallyCorpus, type CorpusTally, type TallyCorpusOptions } from './pipeline/tallyCorpus.js';
+export { encodeCorpus, type EncodeStats, type RowSink, type EncodeCorpusOptions } from './pipeline/encodeCorpus.js';
+export { auditOnThreads } from './pipeline/auditOnThreads.js';
+export { boundedCorpusTally, type BoundedCorpusOptions } from './pipeline/boundedCorpusTally.js';
+export { saveTally } from './files/saveTally.js';
+export { loadTally } from './files/loadTally.js';
 export { run } from './cli.js';

@@ -2,7 +2,11 @@ import { freeze } from '../lexicon/freeze.js';
 import { readCorpus } from '../corpus/readCorpus.js';
 import { saveLexicon } from '../files/saveLexicon.js';
 import { assertWritable } from '../files/refuseOverwrite.js';
+import { boundedCorpusTally } from '../pipeline/boundedCorpusTally.js';
 import { tallyCorpus } from '../pipeline/tallyCorpus.js';
+import { loadTally } from '../files/loadTally.js';
+import { resolveRules } from '../rules/TextRules.js';
+import type { TallyFile } from '../tally/tallyFile.js';
 import { LexlockError } from '../LexlockError.js';
 import { describeLexiconText } from './describeLexicon.js';
 import type { Io } from './Io.js';
@@ -12,9 +16,10 @@ import { createProgress } from './progress.js';
 import { CORPUS_FLAGS, RULE_FLAGS, SHAPE_FLAGS, corpusOptions, rulesFromFlags, shapeFromFlags, threadsFlag } from './sharedFlags.js';
 
 /** `lexlock build --help`. */
-export const BUILD_HELP = `lexlock build <corpus> -o <lexicon.json> [options]
+export const BUILD_HELP = `lexlock build <corpus | all.tally> -o <lexicon.json> [options]
 
-Counts the tokens of a corpus and writes a fingerprinted lexicon file.
+Counts the tokens of a corpus and writes a fingerprinted lexicon file. Given a .tally file (from
+lexlock tally or merge) it freezes those counts instead; the rule and corpus flags are refused then.
 
   -o, --output FILE     where to write the lexicon (refused if it exists, unless --force)
   --cap N               keep the N most frequent tokens (default 20000)
@@ -32,6 +37,7 @@ Counts the tokens of a corpus and writes a fingerprinted lexicon file.
   --bad-text fail|replace|skip   what to do with invalid UTF-8 (default fail)
   --force               overwrite an existing lexicon file
   --threads N           worker threads (default: the machine's cores from 8 MiB of corpus); the lexicon is the same for any N
+  --memory-limit MiB    count in bounded memory (two passes; still exact, or refused with the budget needed)
   -q, --quiet           no progress on stderr
 `;
 
@@ -47,6 +53,7 @@ export async function build(argv: readonly string[], io: Io): Promise<number> {
     oov: { kind: 'value' },
     reserve: { kind: 'value', repeat: true },
     force: { kind: 'switch' },
+    'memory-limit': { kind: 'value' },
     ...CORPUS_FLAGS,
     ...RULE_FLAGS,
     ...SHAPE_FLAGS,
@@ -61,38 +68,79 @@ export async function build(argv: readonly string[], io: Io): Promise<number> {
     throw new LexlockError('USAGE_BAD_VALUE', `--oov: "${oovFlag}" is not one of first, last`, { field: '--oov' });
   }
   const oov = oovFlag ?? 'first';
-  const rules = rulesFromFlags(args);
   const shape = shapeFromFlags(args);
   const force = args.switches.has('force');
+  const fromTally = isTallyPath(corpus);
+  if (fromTally) refuseCorpusFlags(args.values);
+  const rules = fromTally ? null : rulesFromFlags(args);
   const options = corpusOptions(args);
   await assertWritable(output, force);
 
-  const progress = createProgress(io, 'build', { quiet: args.switches.has('quiet'), totalBytes: await corpusBytes(corpus) });
-  const reader = readCorpus(corpus, { ...options, onProgress: (p) => progress.update(p) });
-  let result;
-  try {
-    result = await tallyCorpus(reader, rules, { threads: threadsFlag(args, await corpusBytes(corpus)) });
-  } finally {
-    progress.done();
+  let counted: TallyFile;
+  let stats = { replaced: 0, skipped: 0 };
+  if (fromTally) {
+    counted = await loadTally(corpus);
+    const r = counted.tally.rules;
+    const current = resolveRules({ level: r.level }).tokenizer;
+    if (r.tokenizer !== current) {
+      throw new LexlockError('BAD_TALLY', `${corpus}: counted with ${r.tokenizer}, but this lexlock tokenizes with ${current}; count the parts again with this lexlock`, { file: corpus, field: 'rules.tokenizer' });
+    }
+  } else {
+    const progress = createProgress(io, 'build', { quiet: args.switches.has('quiet'), totalBytes: await corpusBytes(corpus) });
+    const reader = readCorpus(corpus, { ...options, onProgress: (p) => progress.update(p) });
+    let result;
+    try {
+      const memoryLimit = wholeNumberFlag(args, 'memory-limit', 16);
+      result =
+        memoryLimit === undefined
+          ? await tallyCorpus(reader, rules ?? resolveRules(), { threads: threadsFlag(args, await corpusBytes(corpus)) })
+          : await boundedCorpusTally(() => reader, rules ?? resolveRules(), { cap, minCount, reserved: args.values.get('reserve') ?? [], memoryLimitMiB: memoryLimit });
+    } finally {
+      progress.done();
+    }
+    stats = reader.stats;
+    counted = {
+      tally: result.tally,
+      snippets: result.snippets,
+      fields: {
+        text: reader.kind === 'csv' || reader.kind === 'tsv' || reader.kind === 'jsonl' ? (options.text ?? 'text') : null,
+        label: options.label ?? null,
+      },
+    };
   }
-  const lexicon = freeze(result.tally, {
+  const lexicon = freeze(counted.tally, {
     cap,
     minCount,
     oov,
     reserved: args.values.get('reserve') ?? [],
     shape,
-    snippets: result.snippets,
+    snippets: counted.snippets,
     source: corpus,
-    fields: {
-      text: reader.kind === 'csv' || reader.kind === 'tsv' || reader.kind === 'jsonl' ? (options.text ?? 'text') : null,
-      label: options.label ?? null,
-    },
+    fields: counted.fields,
   });
   await saveLexicon(output, lexicon, { force });
-  const { stats } = reader;
   let out = `wrote ${output}\n${describeLexiconText(lexicon)}`;
   if (stats.replaced > 0) out += `note: ${stats.replaced} documents had invalid UTF-8 replaced\n`;
   if (stats.skipped > 0) out += `note: ${stats.skipped} documents with invalid UTF-8 were skipped\n`;
   io.stdout.write(out);
   return 0;
+}
+
+/** True for a build input that is a tally file rather than a corpus. */
+function isTallyPath(path: string): boolean {
+  return path.toLowerCase().endsWith('.tally');
+}
+
+/** Refuses the flags a tally already fixed: the rules it was counted under and how its corpus was read. */
+function refuseCorpusFlags(values: ReadonlyMap<string, string[]>): void {
+  for (const name of Object.keys(RULE_FLAGS)) {
+    if (values.has(name)) {
+      throw new LexlockError('USAGE_BAD_VALUE', `--${name} cannot be used with a tally: the tally fixes the rules it was counted under; leave it out, or count the parts again with lexlock tally --${name}`, { field: `--${name}` });
+    }
+  }
+  for (const name of ['text', 'label', 'bad-text']) {
+    if (values.has(name)) {
+      throw new LexlockError('USAGE_BAD_VALUE', `--${name} cannot be used with a tally: its corpus was read when it was counted; leave it out, or pass it to lexlock tally`, { field: `--${name}` });
+    }
+  }
 }

@@ -19,20 +19,28 @@ export interface TallyCorpusOptions {
   threads?: number;
 }
 
-/** Keeps the first few short, non-blank documents, in corpus order. */
-function snippetKeeper(): { snippets: string[]; see: (text: string) => void } {
+/**
+ * Keeps the few smallest (in JavaScript string order) short, non-blank documents: a choice that does
+ * not depend on document order, thread count or how a corpus was split into shards.
+ */
+export function snippetKeeper(): { snippets: string[]; see: (text: string) => void } {
   const snippets: string[] = [];
   return {
     snippets,
     see(text) {
-      if (snippets.length < SNIPPETS && text.length <= SNIPPET_CHARS && /\S/.test(text) && !snippets.includes(text)) snippets.push(text);
+      if (text.length > SNIPPET_CHARS || !/\S/.test(text) || snippets.includes(text)) return;
+      if (snippets.length === SNIPPETS && !(text < (snippets[SNIPPETS - 1] as string))) return;
+      let i = snippets.length;
+      while (i > 0 && text < (snippets[i - 1] as string)) i--;
+      snippets.splice(i, 0, text);
+      if (snippets.length > SNIPPETS) snippets.pop();
     },
   };
 }
 
 /**
  * Tallies a stream of documents (a corpus reader, or any async iterable of texts) under `rules`,
- * holding only the counts, and keeps the first few short documents as canary snippets. With
+ * holding only the counts, and keeps a few short documents as canary snippets. With
  * `threads` > 1 the documents are tokenized in worker threads in batches; the result is identical.
  */
 export async function tallyCorpus(

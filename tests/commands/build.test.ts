@@ -94,3 +94,25 @@ describe('lexlock build', () => {
     expect(lex.encoding.tokens).toEqual(['a', 'b', '😀']);
   });
 });
+
+describe('lexlock build --memory-limit', () => {
+  it('gives the same lexicon as an unbounded build when it can prove it', async () => {
+    const demo = new URL('../../corpora-demo/ferry-messages.csv', import.meta.url).pathname;
+    expect((await cli('build', demo, '-o', tmp.path('a.json'), '--cap', '500', '--label', 'topic')).code).toBe(0);
+    const bounded = await cli('build', demo, '-o', tmp.path('b.json'), '--cap', '500', '--label', 'topic', '--memory-limit', '16');
+    expect(bounded.stderr).toBe('');
+    const a = JSON.parse(await readFile(tmp.path('a.json'), 'utf8'));
+    const b = JSON.parse(await readFile(tmp.path('b.json'), 'utf8'));
+    expect(b.fingerprint).toBe(a.fingerprint);
+    expect(b.canaries).toEqual(a.canaries);
+    expect(b.fit.oovTokens).toBe(a.fit.oovTokens);
+  });
+
+  it('refuses, naming a budget, when the limit is too small to prove the cap', async () => {
+    const letters = (n: number) => n.toString(26).replace(/[0-9]/g, (d) => 'qrstuvwxyz'[Number(d)]!);
+    await writeFile(tmp.path('wide.txt'), Array.from({ length: 60000 }, (_, i) => `${letters(i)}x`).join(' ') + '\n');
+    const r = await cli('build', tmp.path('wide.txt'), '-o', tmp.path('lex.json'), '--cap', '50000', '--memory-limit', '16');
+    expect(r.code).toBe(1);
+    expect(r.stderr).toMatch(/^lexlock build: the memory limit holds 41,943 counters, too few to prove the top 50,000 tokens exact on this corpus: the last of them occurs 1 times, but a token not followed may have occurred up to \d+ times; about [\d,]+ counters would do: try --memory-limit \d+\n$/);
+  });
+});
