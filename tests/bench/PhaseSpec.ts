@@ -1,0 +1,41 @@
+/** The phases the benchmark runs, each in a child process of its own. */
+export type PhaseName =
+  | 'tokenize'
+  | 'plain'
+  | 'build'
+  | 'baseline-build'
+  | 'encode-noop'
+  | 'encode-npy'
+  | 'baseline-encode'
+  | 'audit'
+  | 'latency'
+  /** Nothing: the floor of every child's memory (Node, the tsx loader, lexlock imported). */
+  | 'idle';
+
+/** What a child process is asked to run. */
+export interface PhaseSpec {
+  phase: PhaseName;
+  /** The corpus path. */
+  corpus: string;
+  /** Label field for csv corpora (folders take theirs from the path). */
+  label?: string;
+  /** The lexicon file: written by `build`, read by the encode and audit phases. */
+  lexicon: string;
+  /** Scratch output (the `.npy` folder). */
+  out: string;
+  cap: number;
+  length: number;
+  /** Worker threads for the build phase (default 1). */
+  threads?: number;
+}
+
+/** What a child process reports. */
+export interface PhaseResult {
+  phase: PhaseName;
+  /** Seconds of the measured part (setup such as loading documents or a lexicon excluded). */
+  seconds: number;
+  /** Peak resident set size of the child process, in KiB (`process.resourceUsage().maxRSS`). */
+  maxRssKiB: number;
+  /** Phase-specific figures (tokens, distinct tokens, latency percentiles...). */
+  figures: Record<string, number>;
+}

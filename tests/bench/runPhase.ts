@@ -1,0 +1,166 @@
+import { readFile } from 'node:fs/promises';
+import {
+  auditCorpus,
+  encodeCorpus,
+  freeze,
+  loadLexicon,
+  parseLexicon,
+  readCorpus,
+  resolveRules,
+  run,
+  saveLexicon,
+  tallyCorpus,
+  tokenize,
+  type CorpusOptions,
+} from 'lexlock/node';
+import { baselineTexts } from './baselineTexts.js';
+import type { PhaseResult, PhaseSpec } from './PhaseSpec.js';
+import { percentile } from './percentile.js';
+import { plainTokens } from './plainTokens.js';
+import { serviceText } from './serviceText.js';
+
+function corpusOptions(spec: PhaseSpec): CorpusOptions {
+  return spec.label === undefined ? {} : { label: spec.label };
+}
+
+async function texts(spec: PhaseSpec): Promise<string[]> {
+  const out: string[] = [];
+  for await (const doc of readCorpus(spec.corpus, corpusOptions(spec))) out.push(doc.text);
+  return out;
+}
+
+function seconds(since: bigint): number {
+  return Number(process.hrtime.bigint() - since) / 1e9;
+}
+
+function median(values: number[]): number {
+  return percentile([...values].sort((a, b) => a - b), 50);
+}
+
+type Measured = Omit<PhaseResult, 'phase' | 'maxRssKiB'>;
+
+async function measureTokenize(spec: PhaseSpec, tokens: (text: string) => string[]): Promise<Measured> {
+  const docs = await texts(spec);
+  let count = 0;
+  const start = process.hrtime.bigint();
+  for (const text of docs) count += tokens(text).length;
+  return { seconds: seconds(start), figures: { documents: docs.length, tokens: count } };
+}
+
+async function measureBuild(spec: PhaseSpec): Promise<Measured> {
+  const start = process.hrtime.bigint();
+  const { tally, snippets } = await tallyCorpus(readCorpus(spec.corpus, corpusOptions(spec)), resolveRules(), { threads: spec.threads ?? 1 });
+  const lexicon = freeze(tally, { cap: spec.cap, snippets, shape: { length: spec.length, pad: 'pre', cut: 'post' } });
+  const time = seconds(start);
+  await saveLexicon(spec.lexicon, lexicon, { force: true });
+  return { seconds: time, figures: { distinctTokens: tally.types, size: lexicon.size } };
+}
+
+async function measureBaselineBuild(spec: PhaseSpec): Promise<Measured> {
+  const start = process.hrtime.bigint();
+  const counts = new Map<string, number>();
+  for await (const text of baselineTexts(spec.corpus)) for (const t of plainTokens(text)) counts.set(t, (counts.get(t) ?? 0) + 1);
+  const ranked = [...counts].sort((a, b) => b[1] - a[1] || (a[0] < b[0] ? -1 : a[0] > b[0] ? 1 : 0)).slice(0, spec.cap);
+  return { seconds: seconds(start), figures: { distinctTokens: counts.size, kept: ranked.length } };
+}
+
+async function measureEncodeNoop(spec: PhaseSpec): Promise<Measured> {
+  const lexicon = await loadLexicon(spec.lexicon);
+  const start = process.hrtime.bigint();
+  const stats = await encodeCorpus(readCorpus(spec.corpus, corpusOptions(spec)), lexicon, lexicon.shape, { row() {} });
+  return { seconds: seconds(start), figures: { documents: stats.documents, tokens: stats.tokens } };
+}
+
+async function measureEncodeNpy(spec: PhaseSpec): Promise<Measured> {
+  const said: string[] = [];
+  const sink = { write: (text: string) => said.push(text) };
+  const start = process.hrtime.bigint();
+  const code = await run(['encode', spec.corpus, '--lexicon', spec.lexicon, '-o', spec.out, '--quiet', '--force'], { stdout: sink, stderr: sink, env: {} });
+  const time = seconds(start);
+  if (code !== 0) throw new Error(`lexlock encode exited ${code}: ${said.join('')}`);
+  return { seconds: time, figures: {} };
+}
+
+async function measureBaselineEncode(spec: PhaseSpec): Promise<Measured> {
+  const file = JSON.parse(await readFile(spec.lexicon, 'utf8')) as { encoding: { tokens: string[] } };
+  const ids = new Map(file.encoding.tokens.map((t, i) => [t, i + 2]));
+  const row = new Int32Array(spec.length);
+  let documents = 0;
+  const start = process.hrtime.bigint();
+  for await (const text of baselineTexts(spec.corpus)) {
+    const tokens = plainTokens(text);
+    row.fill(0);
+    const kept = Math.min(tokens.length, spec.length);
+    for (let i = 0; i < kept; i++) row[spec.length - kept + i] = ids.get(tokens[i] ?? '') ?? 1;
+    documents += 1;
+  }
+  return { seconds: seconds(start), figures: { documents } };
+}
+
+async function measureAudit(spec: PhaseSpec): Promise<Measured> {
+  const lexicon = await loadLexicon(spec.lexicon);
+  const start = process.hrtime.bigint();
+  const report = await auditCorpus(readCorpus(spec.corpus, corpusOptions(spec)), lexicon);
+  return { seconds: seconds(start), figures: { oovRate: report.oovRate } };
+}
+
+/** Serving: load times of the lexicon file, then p50/p99 of encoding one 50-word text (after warm-up). */
+async function measureLatency(spec: PhaseSpec): Promise<Measured> {
+  const json = await readFile(spec.lexicon, 'utf8');
+  const parseMs: number[] = [];
+  const loadMs: number[] = [];
+  for (let i = 0; i < 12; i++) {
+    let t = process.hrtime.bigint();
+    parseLexicon(json);
+    parseMs.push(seconds(t) * 1e3);
+    t = process.hrtime.bigint();
+    await loadLexicon(spec.lexicon);
+    loadMs.push(seconds(t) * 1e3);
+  }
+  const lexicon = await loadLexicon(spec.lexicon);
+  const text = serviceText(lexicon, 50, 1);
+  for (let i = 0; i < 5_000; i++) lexicon.encode(text);
+  const calls = 20_000;
+  const micros = new Float64Array(calls);
+  let sum = 0;
+  for (let i = 0; i < calls; i++) {
+    const t = process.hrtime.bigint();
+    const ids = lexicon.encode(text);
+    micros[i] = Number(process.hrtime.bigint() - t) / 1e3;
+    sum += ids[ids.length - 1] ?? 0;
+  }
+  const sorted = micros.sort();
+  return {
+    seconds: 0,
+    figures: {
+      tokens: lexicon.size - 2,
+      parseMs: median(parseMs),
+      loadMs: median(loadMs),
+      p50Micros: percentile(sorted, 50),
+      p99Micros: percentile(sorted, 99),
+      checksum: sum,
+    },
+  };
+}
+
+const PHASES: Record<PhaseSpec['phase'], (spec: PhaseSpec) => Promise<Measured>> = {
+  tokenize: (spec) => {
+    const rules = resolveRules();
+    return measureTokenize(spec, (text) => tokenize(text, rules));
+  },
+  plain: (spec) => measureTokenize(spec, plainTokens),
+  build: measureBuild,
+  'baseline-build': measureBaselineBuild,
+  'encode-noop': measureEncodeNoop,
+  'encode-npy': measureEncodeNpy,
+  'baseline-encode': measureBaselineEncode,
+  audit: measureAudit,
+  latency: measureLatency,
+  idle: () => Promise.resolve({ seconds: 0, figures: {} }),
+};
+
+/** Runs one phase in this process and reports its time, figures and this process's peak memory. */
+export async function runPhase(spec: PhaseSpec): Promise<PhaseResult> {
+  const measured = await PHASES[spec.phase](spec);
+  return { phase: spec.phase, ...measured, maxRssKiB: process.resourceUsage().maxRSS };
+}
