@@ -8,6 +8,8 @@ import { Tally, type LabelledText } from './Tally.js';
 /** Bytes one Space-Saving counter costs in V8, token text included (measured on short tokens; generous). */
 export const BYTES_PER_COUNTER = 200;
 
+const times = (n: number) => (n === 1 ? 'once' : `${n.toLocaleString('en-US')} times`);
+
 /** What {@link boundedTally} needs to know. */
 export interface BoundedTallyOptions {
   /** Ranked tokens the lexicon will keep (reserved ones not included). */
@@ -65,7 +67,7 @@ export async function boundedTally(
     throw new LexlockError(
       'MEMORY_LIMIT',
       `the memory limit holds ${capacity.toLocaleString('en-US')} counters, too few to prove the top ${options.cap.toLocaleString('en-US')} tokens exact on this corpus: ` +
-        `the last of them occurs ${threshold} times, but a token not followed may have occurred up to ${floor} times; about ${needed.toLocaleString('en-US')} counters would do: try --memory-limit ${mib}`,
+        `the last of them occurs ${times(threshold)}, but a token not followed may have occurred up to ${times(floor)}; about ${needed.toLocaleString('en-US')} counters would do: try --memory-limit ${mib}`,
       { field: '--memory-limit' },
     );
   }

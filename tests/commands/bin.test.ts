@@ -51,6 +51,21 @@ describe('the lexlock executable', () => {
     expect(usage.stderr).toBe('lexlock build: --cap: "-3" is not a whole number of at least 1\n');
   });
 
+  // The built package starts dist/worker.js (the sources start worker.ts through tsx): check that path too.
+  it('builds the same lexicon bytes on 1 and 2 worker threads from the built package', async () => {
+    for (const threads of ['1', '2']) {
+      const r = lexlock('build', demo, '-o', tmp.path(`t${threads}.json`), '--label', 'topic', '--threads', threads, '--quiet');
+      expect([r.status, r.stderr]).toEqual([0, '']);
+    }
+    const [one, two] = await Promise.all(['t1.json', 't2.json'].map(async (f) => JSON.parse(await readFile(tmp.path(f), 'utf8'))));
+    two.fit.createdAt = one.fit.createdAt;
+    expect(JSON.stringify(two)).toBe(JSON.stringify(one));
+    const encoded = lexlock('encode', demo, '--lexicon', tmp.path('t1.json'), '-o', tmp.path('e2.jsonl'), '--threads', '2');
+    const single = lexlock('encode', demo, '--lexicon', tmp.path('t1.json'), '-o', tmp.path('e1.jsonl'), '--threads', '1');
+    expect([encoded.status, single.status]).toEqual([0, 0]);
+    expect(await readFile(tmp.path('e2.jsonl'), 'utf8')).toBe(await readFile(tmp.path('e1.jsonl'), 'utf8'));
+  });
+
   // Atomic save: killed at any moment, build leaves either no lexicon or a complete, valid one.
   it('never leaves a half-written lexicon when killed', async () => {
     const big = tmp.path('big.txt');

@@ -65,7 +65,7 @@ describe('boundedTally', () => {
   it('refuses, naming a budget that would do, when the counters are too few', async () => {
     const docs = zipfDocuments(3, 200, 5000);
     await expect(boundedTally(() => docs, rules, { cap: 500, minCount: 1, budgetBytes: 20 * BYTES_PER_COUNTER })).rejects.toThrow(
-      /^the memory limit holds 20 counters, too few to prove the top 500 tokens exact on this corpus: the last of them occurs \d+ times, but a token not followed may have occurred up to \d+ times; about [\d,]+ counters would do: try --memory-limit \d+$/,
+      /^the memory limit holds 20 counters, too few to prove the top 500 tokens exact on this corpus: the last of them occurs (once|[\d,]+ times), but a token not followed may have occurred up to (once|[\d,]+ times); about [\d,]+ counters would do: try --memory-limit \d+$/,
     );
   });
 });
