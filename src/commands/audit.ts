@@ -16,7 +16,7 @@ import { corpusBytes } from './corpusBytes.js';
 import type { Io } from './Io.js';
 import { parseArgs, positionals, valueOf, wholeNumberFlag, type ParsedArgs } from './parseArgs.js';
 import { createProgress } from './progress.js';
-import { CORPUS_FLAGS, RULE_FLAGS, SHAPE_FLAGS, corpusOptions, rulesFromFlags, shapeFromFlags, threadsFlag } from './sharedFlags.js';
+import { CORPUS_FLAGS, RULE_FLAGS, SHAPE_FLAGS, corpusOptions, rulesFromFlags, shapeFromFlags, lexiconFieldDefaults, threadsFlag } from './sharedFlags.js';
 
 /** `lexlock audit --help`. */
 export const AUDIT_HELP = `lexlock audit <corpus> (--lexicon <lexicon.json> | --cap N) [options]
@@ -99,9 +99,7 @@ export async function audit(argv: readonly string[], io: Io): Promise<number> {
   let options;
   if (lexiconPath !== undefined) {
     lexicon = await loadLexicon(lexiconPath);
-    const hasFields = ['csv', 'tsv', 'jsonl'].includes(readCorpus(corpus).kind);
-    const fit = hasFields ? lexicon.fit : null;
-    options = corpusOptions(args, { text: fit?.textField ?? undefined, label: fit?.labelField ?? undefined });
+    options = corpusOptions(args, lexiconFieldDefaults(corpus, lexicon));
   } else {
     options = corpusOptions(args);
     const rules = rulesFromFlags(args);

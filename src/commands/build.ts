@@ -13,7 +13,7 @@ import type { Io } from './Io.js';
 import { parseArgs, positionals, valueOf, wholeNumberFlag } from './parseArgs.js';
 import { corpusBytes } from './corpusBytes.js';
 import { createProgress } from './progress.js';
-import { CORPUS_FLAGS, RULE_FLAGS, SHAPE_FLAGS, corpusOptions, rulesFromFlags, shapeFromFlags, threadsFlag } from './sharedFlags.js';
+import { CORPUS_FLAGS, RULE_FLAGS, SHAPE_FLAGS, corpusOptions, rulesFromFlags, shapeFromFlags, threadsFlag, badTextNotes, corpusFields } from './sharedFlags.js';
 
 /** `lexlock build --help`. */
 export const BUILD_HELP = `lexlock build <corpus | all.tally> -o <lexicon.json> [options]
@@ -103,8 +103,7 @@ export async function build(argv: readonly string[], io: Io): Promise<number> {
       tally: result.tally,
       snippets: result.snippets,
       fields: {
-        text: reader.kind === 'csv' || reader.kind === 'tsv' || reader.kind === 'jsonl' ? (options.text ?? 'text') : null,
-        label: options.label ?? null,
+        ...corpusFields(reader.kind, options),
       },
     };
   }
@@ -120,8 +119,7 @@ export async function build(argv: readonly string[], io: Io): Promise<number> {
   });
   await saveLexicon(output, lexicon, { force });
   let out = `wrote ${output}\n${describeLexiconText(lexicon)}`;
-  if (stats.replaced > 0) out += `note: ${stats.replaced} documents had invalid UTF-8 replaced\n`;
-  if (stats.skipped > 0) out += `note: ${stats.skipped} documents with invalid UTF-8 were skipped\n`;
+  out += badTextNotes(stats);
   io.stdout.write(out);
   return 0;
 }

@@ -15,7 +15,7 @@ import type { Io } from './Io.js';
 import { parseArgs, positionals, valueOf } from './parseArgs.js';
 import { corpusBytes } from './corpusBytes.js';
 import { createProgress } from './progress.js';
-import { CORPUS_FLAGS, SHAPE_FLAGS, corpusOptions, shapeFromFlags, threadsFlag } from './sharedFlags.js';
+import { CORPUS_FLAGS, SHAPE_FLAGS, corpusOptions, shapeFromFlags, lexiconFieldDefaults, threadsFlag } from './sharedFlags.js';
 
 /** `lexlock encode --help`. */
 export const ENCODE_HELP = `lexlock encode <corpus> --lexicon <lexicon.json> -o <out> [options]
@@ -138,10 +138,7 @@ export async function encode(argv: readonly string[], io: Io): Promise<number> {
       { field: '--length' },
     );
   }
-  // Text and label fields default to those the lexicon was built from, where the corpus kind has fields.
-  const hasFields = ['csv', 'tsv', 'jsonl'].includes(readCorpus(corpus).kind);
-  const fit = hasFields ? lexicon.fit : null;
-  const options = corpusOptions(args, { text: fit?.textField ?? undefined, label: fit?.labelField ?? undefined });
+  const options = corpusOptions(args, lexiconFieldDefaults(corpus, lexicon));
   if (jsonl) await assertWritable(output, force);
   else await assertFolderWritable(output, force);
 

@@ -1,6 +1,10 @@
 import { resolveRules, TOKEN_TYPES, type TextRules } from '../rules/TextRules.js';
 import type { Shape } from '../lexicon/Shape.js';
 import { LexlockError } from '../LexlockError.js';
+import { hasFields, type CorpusKind } from '../corpus/corpusKind.js';
+import { readCorpus } from '../corpus/readCorpus.js';
+import type { CorpusStats } from '../corpus/CorpusStats.js';
+import type { Lexicon } from '../lexicon/Lexicon.js';
 import { defaultThreads } from '../workers/WorkerPool.js';
 import { choiceFlag, listFlag, valueOf, wholeNumberFlag, type FlagSpec, type ParsedArgs } from './parseArgs.js';
 
@@ -91,4 +95,26 @@ export function shapeFromFlags(args: ParsedArgs): Shape | null {
     return null;
   }
   return { length, pad: pad ?? 'post', cut: cut ?? 'post' };
+}
+
+/** The corpus fields a lexicon or tally records: the text field for kinds with fields, and the label field. */
+export function corpusFields(kind: CorpusKind, options: { text?: string; label?: string }): { text: string | null; label: string | null } {
+  return { text: hasFields(kind) ? (options.text ?? 'text') : null, label: options.label ?? null };
+}
+
+/**
+ * Text and label field defaults for reading a corpus with a lexicon: the fields it was built from,
+ * where the corpus kind has fields at all (a .txt or folder corpus gets none).
+ */
+export function lexiconFieldDefaults(corpus: string, lexicon: Lexicon): { text?: string | undefined; label?: string | undefined } {
+  const fit = hasFields(readCorpus(corpus).kind) ? lexicon.fit : null;
+  return { text: fit?.textField ?? undefined, label: fit?.labelField ?? undefined };
+}
+
+/** The lines build and tally print after their summary about documents with invalid UTF-8. */
+export function badTextNotes(stats: Pick<CorpusStats, 'replaced' | 'skipped'>): string {
+  let out = '';
+  if (stats.replaced > 0) out += `note: ${stats.replaced} documents had invalid UTF-8 replaced\n`;
+  if (stats.skipped > 0) out += `note: ${stats.skipped} documents with invalid UTF-8 were skipped\n`;
+  return out;
 }

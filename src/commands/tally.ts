@@ -9,7 +9,7 @@ import type { Io } from './Io.js';
 import { parseArgs, positionals, valueOf } from './parseArgs.js';
 import { corpusBytes } from './corpusBytes.js';
 import { createProgress } from './progress.js';
-import { CORPUS_FLAGS, RULE_FLAGS, corpusOptions, rulesFromFlags } from './sharedFlags.js';
+import { CORPUS_FLAGS, RULE_FLAGS, corpusOptions, rulesFromFlags, badTextNotes, corpusFields } from './sharedFlags.js';
 
 /** `lexlock tally --help`. */
 export const TALLY_HELP = `lexlock tally <corpus part> -o <part.tally> [options]
@@ -77,15 +77,13 @@ export async function tally(argv: readonly string[], io: Io): Promise<number> {
     tally: result.tally,
     snippets: result.snippets,
     fields: {
-      text: reader.kind === 'csv' || reader.kind === 'tsv' || reader.kind === 'jsonl' ? (options.text ?? 'text') : null,
-      label: options.label ?? null,
+      ...corpusFields(reader.kind, options),
     },
   };
   await saveTally(output, file, { force });
   const { stats } = reader;
   let out = describeTallyFile(output, file);
-  if (stats.replaced > 0) out += `note: ${stats.replaced} documents had invalid UTF-8 replaced\n`;
-  if (stats.skipped > 0) out += `note: ${stats.skipped} documents with invalid UTF-8 were skipped\n`;
+  out += badTextNotes(stats);
   io.stdout.write(out);
   return 0;
 }

@@ -3,6 +3,11 @@ import { inputError } from '../LexlockError.js';
 /** The kinds of corpus lexlock reads. */
 export type CorpusKind = 'csv' | 'tsv' | 'jsonl' | 'txt' | 'folder';
 
+/** True for the kinds whose documents have named fields (`--text`, `--label`): csv, tsv, jsonl. */
+export function hasFields(kind: CorpusKind): boolean {
+  return kind === 'csv' || kind === 'tsv' || kind === 'jsonl';
+}
+
 const BY_EXTENSION = new Map<string, CorpusKind>([
   ['.csv', 'csv'],
   ['.tsv', 'tsv'],
