@@ -2,22 +2,16 @@ import { spawn, spawnSync } from 'node:child_process';
 import { readFile, readdir, writeFile } from 'node:fs/promises';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { afterEach, beforeEach, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { parseLexicon } from '../../src/artifact/parseLexicon.js';
-import { tempFolder } from '../helpers/cli.js';
+import { freshFolderEachTest } from '../helpers/cli.js';
 
 // End-to-end through the built executable (npm test runs tsup first), as a user would call it.
 const root = join(fileURLToPath(import.meta.url), '../../..');
 const bin = join(root, 'dist', 'bin.js');
 const demo = join(root, 'corpora-demo', 'ferry-messages.csv');
 
-let tmp: Awaited<ReturnType<typeof tempFolder>>;
-beforeEach(async () => {
-  tmp = await tempFolder();
-});
-afterEach(async () => {
-  await tmp.remove();
-});
+const tmp = freshFolderEachTest();
 
 function lexlock(...args: string[]) {
   return spawnSync(process.execPath, [bin, ...args], { encoding: 'utf8' });

@@ -1,15 +1,9 @@
 import { readFile, writeFile } from 'node:fs/promises';
-import { afterEach, beforeEach, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { parseLexicon } from '../../src/artifact/parseLexicon.js';
-import { cli, tempFolder } from '../helpers/cli.js';
+import { cli, freshFolderEachTest } from '../helpers/cli.js';
 
-let tmp: Awaited<ReturnType<typeof tempFolder>>;
-beforeEach(async () => {
-  tmp = await tempFolder();
-});
-afterEach(async () => {
-  await tmp.remove();
-});
+const tmp = freshFolderEachTest();
 
 const CSV = 'text,topic\n"The ferry was late, again",delays\nLovely crossing,praise\nLate late late,delays\n';
 

@@ -1,19 +1,13 @@
 import { readFile, writeFile } from 'node:fs/promises';
 import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { afterEach, beforeEach, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { parseLexicon } from '../../src/artifact/parseLexicon.js';
-import { cli, tempFolder } from '../helpers/cli.js';
+import { cli, freshFolderEachTest } from '../helpers/cli.js';
 
 const FERRY = join(dirname(fileURLToPath(import.meta.url)), '..', '..', 'corpora-demo', 'ferry-messages.csv');
 
-let tmp: Awaited<ReturnType<typeof tempFolder>>;
-beforeEach(async () => {
-  tmp = await tempFolder();
-});
-afterEach(async () => {
-  await tmp.remove();
-});
+const tmp = freshFolderEachTest();
 
 /** Splits CSV text into its header and records (a record ends at a newline outside quotes). */
 function csvRecords(text: string): { header: string; records: string[] } {

@@ -1,19 +1,13 @@
 import { readFile, readdir, writeFile } from 'node:fs/promises';
-import { afterEach, beforeEach, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { loadLexicon } from '../../src/files/loadLexicon.js';
 import { saveLexicon } from '../../src/files/saveLexicon.js';
 import { freeze } from '../../src/lexicon/freeze.js';
 import { resolveRules } from '../../src/rules/TextRules.js';
 import { Tally } from '../../src/tally/Tally.js';
-import { tempFolder } from '../helpers/tempFolder.js';
+import { freshFolderEachTest } from '../helpers/tempFolder.js';
 
-let tmp: Awaited<ReturnType<typeof tempFolder>>;
-beforeEach(async () => {
-  tmp = await tempFolder();
-});
-afterEach(async () => {
-  await tmp.remove();
-});
+const tmp = freshFolderEachTest();
 
 const lexicon = freeze(Tally.fromTexts(['the ferry was late', 'lovely ferry'], resolveRules()));
 

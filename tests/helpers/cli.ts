@@ -19,4 +19,4 @@ export async function cli(...argv: string[]): Promise<CliResult> {
   return { code, stdout, stderr };
 }
 
-export { tempFolder } from './tempFolder.js';
+export { freshFolderEachTest, tempFolder } from './tempFolder.js';
