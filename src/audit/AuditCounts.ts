@@ -16,7 +16,7 @@ export interface AuditParts {
  * What an audit counts, document by document: the corpus tally, OOV and truncation overall and per
  * label. Everything adds up, so counts made over parts of a corpus (threads) merge to the same.
  */
-export class AuditCounts implements AuditParts {
+export class AuditCounts implements Omit<AuditParts, 'tally'> {
   readonly tally: Tally;
   readonly labels = new Map<string, LabelAudit>();
   oovTokens = 0;
@@ -63,9 +63,8 @@ export class AuditCounts implements AuditParts {
 
   /** The additive state, for sending to another thread. */
   parts(): AuditParts {
-    const { documents, tokens, counts, documentFrequency, lengths, labels } = this.tally;
     return {
-      tally: { documents, tokens, counts, documentFrequency, lengths, labels },
+      tally: this.tally.toCounts(),
       labels: this.labels,
       oovTokens: this.oovTokens,
       truncatedDocuments: this.truncatedDocuments,

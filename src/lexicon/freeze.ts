@@ -80,7 +80,7 @@ export function freeze(tally: Tally, options: FreezeOptions = {}): Lexicon {
 
   let inVocabulary = 0;
   for (const [, n] of kept) inVocabulary += n;
-  for (const r of reserved) inVocabulary += tally.counts.get(r) ?? 0;
+  for (const r of reserved) inVocabulary += tally.countOf(r);
   const oovTokens = tally.tokens - inVocabulary;
 
   const caps = new Set(COVERAGE_CAPS.filter((c) => c < allRanked.length));

@@ -15,14 +15,26 @@ export interface LabelCounts {
   tokens: number;
 }
 
-/** The counts of a tally without its rules: what a worker thread sends back. */
+/**
+ * The counts of a tally without its rules, in a form that crosses threads cheaply (a worker's reply):
+ * token `i` of `types` occurred `occurrences[i]` times, in `documentFrequency[i]` documents.
+ */
 export interface TallyCounts {
   readonly documents: number;
   readonly tokens: number;
-  readonly counts: ReadonlyMap<string, number>;
-  readonly documentFrequency: ReadonlyMap<string, number>;
+  readonly types: readonly string[];
+  readonly occurrences: Float64Array;
+  readonly documentFrequency: Float64Array;
   readonly lengths: ReadonlyMap<number, number>;
   readonly labels: ReadonlyMap<string, LabelCounts>;
+}
+
+/** What a tally knows of one token. */
+interface TokenEntry {
+  count: number;
+  documents: number;
+  /** The number of the last document counted with this token in it (document frequency is counted once a document). */
+  last: number;
 }
 
 /**
@@ -31,24 +43,63 @@ export interface TallyCounts {
  * addition, in any order or split, to the same tally.
  * @example
  * const tally = Tally.fromTexts(['a b', 'b c'], resolveRules());
- * tally.counts.get('b') // 2
+ * tally.countOf('b') // 2
  */
 export class Tally {
   /** The rules every counted document was tokenized with. */
   readonly rules: TextRules;
-  /** Occurrences per token. */
-  readonly counts = new Map<string, number>();
-  /** Documents each token occurs in. */
-  readonly documentFrequency = new Map<string, number>();
   /** Histogram of tokens per document: length -> documents. */
   readonly lengths = new Map<number, number>();
   /** Documents and tokens per label (labelled documents only). */
   readonly labels = new Map<string, LabelCounts>();
   documents = 0;
   tokens = 0;
+  // One entry per token: a single hash lookup counts an occurrence and its document.
+  readonly #entries = new Map<string, TokenEntry>();
+  // Snapshots handed out by `counts` and `documentFrequency`, dropped when the tally changes.
+  #counts: Map<string, number> | null = null;
+  #frequency: Map<string, number> | null = null;
 
   constructor(rules: TextRules) {
     this.rules = rules;
+  }
+
+  /** Occurrences of `token` (0 when never counted). */
+  countOf(token: string): number {
+    return this.#entries.get(token)?.count ?? 0;
+  }
+
+  /** Documents `token` occurs in (0 when never counted). */
+  documentsOf(token: string): number {
+    return this.#entries.get(token)?.documents ?? 0;
+  }
+
+  /** Every counted token with its occurrences and document frequency, in the order first counted. */
+  *entries(): IterableIterator<[token: string, count: number, documents: number]> {
+    for (const [token, e] of this.#entries) yield [token, e.count, e.documents];
+  }
+
+  /** Occurrences per token: a read-only snapshot, made once and kept until the tally changes. */
+  get counts(): ReadonlyMap<string, number> {
+    if (this.#counts === null) {
+      this.#counts = new Map();
+      for (const [token, e] of this.#entries) this.#counts.set(token, e.count);
+    }
+    return this.#counts;
+  }
+
+  /** Documents each token occurs in: a read-only snapshot, as {@link Tally.counts}. */
+  get documentFrequency(): ReadonlyMap<string, number> {
+    if (this.#frequency === null) {
+      this.#frequency = new Map();
+      for (const [token, e] of this.#entries) this.#frequency.set(token, e.documents);
+    }
+    return this.#frequency;
+  }
+
+  /** Distinct tokens counted. */
+  get types(): number {
+    return this.#entries.size;
   }
 
   /** Counts one document's tokens (already tokenized under `this.rules`). */
@@ -61,23 +112,41 @@ export class Tally {
    * tokens `keep` accepts (null: all), for a second pass that counts known candidates exactly.
    */
   addSome(tokens: readonly string[], label: string | undefined, keep: ReadonlySet<string> | null): this {
+    this.#changed();
     this.documents += 1;
+    const document = this.documents;
     this.tokens += tokens.length;
     this.lengths.set(tokens.length, (this.lengths.get(tokens.length) ?? 0) + 1);
-    const seen = new Set<string>();
+    const entries = this.#entries;
     for (const t of tokens) {
       if (keep !== null && !keep.has(t)) continue;
-      this.counts.set(t, (this.counts.get(t) ?? 0) + 1);
-      if (!seen.has(t)) {
-        seen.add(t);
-        this.documentFrequency.set(t, (this.documentFrequency.get(t) ?? 0) + 1);
+      const e = entries.get(t);
+      if (e === undefined) entries.set(t, { count: 1, documents: 1, last: document });
+      else {
+        e.count += 1;
+        if (e.last !== document) {
+          e.last = document;
+          e.documents += 1;
+        }
       }
     }
-    if (label !== undefined) {
-      const c = this.labels.get(label) ?? { documents: 0, tokens: 0 };
-      c.documents += 1;
-      c.tokens += tokens.length;
-      this.labels.set(label, c);
+    if (label !== undefined) addLabel(this.labels, label, 1, tokens.length);
+    return this;
+  }
+
+  /**
+   * Adds `count` occurrences in `documents` documents of `token`, as read from a tally file or made
+   * elsewhere; the documents themselves are counted by the caller.
+   */
+  addToken(token: string, count: number, documents: number): this {
+    this.#changed();
+    const e = this.#entries.get(token);
+    // `last` 0 matches no document counted here, so a later document still counts as a new one.
+    if (e === undefined) this.#entries.set(token, { count, documents, last: 0 });
+    else {
+      e.count += count;
+      e.documents += documents;
+      e.last = 0;
     }
     return this;
   }
@@ -99,31 +168,37 @@ export class Tally {
         { field: 'rules' },
       );
     }
-    return this.mergeCounts(other);
+    return this.mergeCounts(other.toCounts());
   }
 
   /**
    * Adds counts made elsewhere under this tally's rules, such as a worker thread's tally of a batch
-   * (the parts survive structured cloning). The caller vouches for the rules; prefer `merge`.
+   * (see {@link Tally.toCounts}). The caller vouches for the rules; prefer `merge`.
    */
   mergeCounts(other: TallyCounts): this {
     this.documents += other.documents;
     this.tokens += other.tokens;
-    addInto(this.counts, other.counts);
-    addInto(this.documentFrequency, other.documentFrequency);
-    addInto(this.lengths, other.lengths);
-    for (const [label, c] of other.labels) {
-      const mine = this.labels.get(label) ?? { documents: 0, tokens: 0 };
-      mine.documents += c.documents;
-      mine.tokens += c.tokens;
-      this.labels.set(label, mine);
-    }
+    other.types.forEach((token, i) => this.addToken(token, other.occurrences[i] as number, other.documentFrequency[i] as number));
+    for (const [length, n] of other.lengths) this.lengths.set(length, (this.lengths.get(length) ?? 0) + n);
+    for (const [label, c] of other.labels) addLabel(this.labels, label, c.documents, c.tokens);
     return this;
   }
 
-  /** Distinct tokens counted. */
-  get types(): number {
-    return this.counts.size;
+  /** The counts as flat arrays, to send to another thread (structured cloning copies arrays fast). */
+  toCounts(): TallyCounts {
+    const n = this.#entries.size;
+    const types: string[] = new Array<string>(n);
+    const occurrences = new Float64Array(n);
+    const documentFrequency = new Float64Array(n);
+    let i = 0;
+    for (const [token, e] of this.#entries) {
+      types[i] = token;
+      occurrences[i] = e.count;
+      documentFrequency[i] = e.documents;
+      i++;
+    }
+    const { documents, tokens, lengths, labels } = this;
+    return { documents, tokens, types, occurrences, documentFrequency, lengths, labels };
   }
 
   /** Counts texts from a synchronous iterable. */
@@ -139,8 +214,18 @@ export class Tally {
     for await (const t of texts) tally.add(t);
     return tally;
   }
+
+  #changed(): void {
+    this.#counts = null;
+    this.#frequency = null;
+  }
 }
 
-function addInto<K>(into: Map<K, number>, from: ReadonlyMap<K, number>): void {
-  for (const [k, n] of from) into.set(k, (into.get(k) ?? 0) + n);
+function addLabel(labels: Map<string, LabelCounts>, label: string, documents: number, tokens: number): void {
+  const c = labels.get(label);
+  if (c === undefined) labels.set(label, { documents, tokens });
+  else {
+    c.documents += documents;
+    c.tokens += tokens;
+  }
 }

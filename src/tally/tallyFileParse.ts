@@ -104,8 +104,7 @@ export function tallyFileParse(input: string | object, options: TallyFileParseOp
     if (df > doc.documents) throw bad(`counts[${i}]`, `token ${JSON.stringify(token)} occurs in ${df} documents but the tally has ${doc.documents}`);
     previous = token;
     occurrences += n;
-    tally.counts.set(token, n);
-    tally.documentFrequency.set(token, df);
+    tally.addToken(token, n, df);
   });
   if (occurrences !== doc.tokens) throw bad('counts', `the counts add up to ${occurrences} tokens but tokens is ${doc.tokens}`);
   if (doc.snippets.length > TALLY_SNIPPETS) throw bad('snippets', `${doc.snippets.length} snippets; a tally keeps at most ${TALLY_SNIPPETS}`);

@@ -24,17 +24,14 @@ export function* tallyFileLines(file: TallyFile): Generator<string> {
   yield `  "fields": ${JSON.stringify({ text: file.fields.text, label: file.fields.label })},\n`;
   yield `  "documents": ${tally.documents},\n`;
   yield `  "tokens": ${tally.tokens},\n`;
-  yield `  "types": ${tally.counts.size},\n`;
+  yield `  "types": ${tally.types},\n`;
   yield* entries('lengths', [...tally.lengths].filter(([, n]) => n > 0).sort((a, b) => a[0] - b[0]), false);
   const labels = [...tally.labels].sort((a, b) => tallyFileOrder(a[0], b[0])).map(([label, c]) => [label, c.documents, c.tokens]);
   yield* entries('labels', labels, false);
   yield* entries('snippets', [...new Set(file.snippets)].sort(tallyFileOrder).slice(0, TALLY_SNIPPETS), false);
-  const tokens = [...tally.counts.keys()].sort(tallyFileOrder);
+  const counts = [...tally.entries()].sort((a, b) => tallyFileOrder(a[0], b[0]));
   yield `  "counts": [\n`;
-  for (let i = 0; i < tokens.length; i++) {
-    const t = tokens[i] as string;
-    yield `    ${JSON.stringify([t, tally.counts.get(t), tally.documentFrequency.get(t) ?? 0])}${i < tokens.length - 1 ? ',' : ''}\n`;
-  }
+  for (let i = 0; i < counts.length; i++) yield `    ${JSON.stringify(counts[i])}${i < counts.length - 1 ? ',' : ''}\n`;
   yield '  ]\n}\n';
 }
 

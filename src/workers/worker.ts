@@ -14,8 +14,7 @@ function handle(batch: Batch): WorkerReply {
     if (setup.kind !== 'tally') throw new Error('worker set up without a lexicon');
     const tally = new Tally(setup.rules);
     batch.texts.forEach((text, i) => tally.add({ text, label: batch.labels[i] ?? undefined }));
-    const { documents, tokens, counts, documentFrequency, lengths, labels } = tally;
-    return { id: batch.id, tally: { documents, tokens, counts, documentFrequency, lengths, labels } };
+    return { id: batch.id, tally: tally.toCounts() };
   }
   if (setup.kind === 'audit') {
     const counts = new AuditCounts(lexicon, setup.length);

@@ -68,9 +68,11 @@ describe('the lexlock executable', () => {
     for (const delay of [50, 150, 300, 600]) {
       const out = tmp.path(`lex-${delay}.json`);
       const child = spawn(process.execPath, [bin, 'build', big, '-o', out, '--quiet']);
+      // Listened for at once: a fast build may finish before the kill.
+      const closed = new Promise((r) => child.on('close', r));
       await new Promise((r) => setTimeout(r, delay));
       child.kill('SIGKILL');
-      await new Promise((r) => child.on('close', r));
+      await closed;
       const text = await readFile(out, 'utf8').catch(() => null);
       if (text !== null) expect(parseLexicon(text).fit?.documents).toBe(60000);
     }

@@ -6,7 +6,7 @@ import { Tally } from '../../src/tally/Tally.js';
 const rules = resolveRules();
 
 function snapshot(t: Tally) {
-  const sorted = <V>(m: Map<string | number, V>) => [...m.entries()].sort((a, b) => (String(a[0]) < String(b[0]) ? -1 : 1));
+  const sorted = <V>(m: ReadonlyMap<string | number, V>) => [...m.entries()].sort((a, b) => (String(a[0]) < String(b[0]) ? -1 : 1));
   return {
     documents: t.documents,
     tokens: t.tokens,
