@@ -1,3 +1,5 @@
+import { detached } from '../rules/detached.js';
+
 /** One monitored token of a {@link SpaceSaving} summary. */
 interface Counter {
   token: string;
@@ -48,8 +50,8 @@ export class SpaceSaving {
       return;
     }
     if (this.counters.size < this.capacity) {
-      const counter: Counter = { token, count: 0, error: 0, group: this.zeroGroup(), prev: null, next: null };
-      this.counters.set(token, counter);
+      const counter: Counter = { token: detached(token), count: 0, error: 0, group: this.zeroGroup(), prev: null, next: null };
+      this.counters.set(counter.token, counter);
       this.attach(counter, counter.group);
       this.raise(counter);
       return;
@@ -57,9 +59,9 @@ export class SpaceSaving {
     // Take over a counter with the smallest count: the newcomer inherits it as its possible error.
     const victim = (this.lowest as Group).first as Counter;
     this.counters.delete(victim.token);
-    victim.token = token;
+    victim.token = detached(token);
     victim.error = victim.count;
-    this.counters.set(token, victim);
+    this.counters.set(victim.token, victim);
     this.raise(victim);
   }
 

@@ -1,5 +1,6 @@
 import { LexlockError } from '../LexlockError.js';
 import { canonicalJson } from '../artifact/canonicalJson.js';
+import { detached } from '../rules/detached.js';
 import { tokenize } from '../rules/tokenize.js';
 import type { TextRules } from '../rules/TextRules.js';
 
@@ -121,7 +122,7 @@ export class Tally {
     for (const t of tokens) {
       if (keep !== null && !keep.has(t)) continue;
       const e = entries.get(t);
-      if (e === undefined) entries.set(t, { count: 1, documents: 1, last: document });
+      if (e === undefined) entries.set(detached(t), { count: 1, documents: 1, last: document });
       else {
         e.count += 1;
         if (e.last !== document) {

@@ -1,6 +1,8 @@
+import { detached } from '../detached.js';
 import type { TextRules } from '../TextRules.js';
 import { finishTokens } from './finishTokens.js';
 import { GroupCache } from './GroupCache.js';
+import { scanLinkChunk } from './scanLinkChunk.js';
 import { scanPlainChunk } from './scanPlainChunk.js';
 import { tokenizeGroups } from './tokenizeGroups.js';
 import { WHITE_SPACE_TABLE } from './whiteSpaceTable.js';
@@ -10,6 +12,8 @@ const cache = new GroupCache();
 const CACHE_MAX_LENGTH = 64;
 /** The tag of the placeholder pair that holds a wink-tokenized group's place (wink has no such tag). */
 const PLACE = '\u0000';
+const AT = 0x40;
+const COLON = 0x3a;
 
 function isDigitOrColon(code: number): boolean {
   return (code >= 0x30 && code <= 0x39) || code === 0x3a;
@@ -26,8 +30,9 @@ function startsTimeSuffix(code: number): boolean {
  * wink-tokenizer on the whole text, but faster. The text is cut into chunks at white space; wink's
  * rules never match across white space except the time rule (`10 am`), so a chunk ending in a digit
  * or `:` is kept with the next when one white space separates them and that one starts with a, p or h.
- * Plain chunks (see {@link scanPlainChunk}) are tokenized directly, the rest by wink in one call per
- * text, memoized.
+ * Plain chunks (see {@link scanPlainChunk}) are tokenized directly, so are chunks with URLs or e-mail
+ * addresses around plain parts (see {@link scanLinkChunk}); the rest by wink in one call per text,
+ * memoized.
  * @example fastWordTokens('Depart 10 am, ok?', { drop: [], collapse: [] }) // ['Depart', '10 am', ',', 'ok', '?']
  */
 export function fastWordTokens(text: string, rules: Pick<TextRules, 'drop' | 'collapse'>): string[] {
@@ -49,6 +54,8 @@ export function fastWordTokens(text: string, rules: Pick<TextRules, 'drop' | 'co
     let end = scanPlainChunk(text, i, raw, tagged);
     let plain = end === n || WHITE_SPACE_TABLE[text.charCodeAt(end)] === 1;
     if (!plain) raw.length = saved;
+    const stop = end;
+    let joined = false;
     for (;;) {
       while (end < n && WHITE_SPACE_TABLE[text.charCodeAt(end)] !== 1) end++;
       // Keep the next chunk with this group when a time match could span the one white space between.
@@ -60,6 +67,7 @@ export function fastWordTokens(text: string, rules: Pick<TextRules, 'drop' | 'co
       ) {
         if (plain) raw.length = saved;
         plain = false;
+        joined = true;
         end += 1;
         continue;
       }
@@ -67,6 +75,12 @@ export function fastWordTokens(text: string, rules: Pick<TextRules, 'drop' | 'co
     }
     i = end;
     if (plain) continue;
+    // A chunk the plain scanner stopped in at an '@' or a ':' may hold an address or a URL.
+    const at = text.charCodeAt(stop);
+    if (!joined && (at === AT || at === COLON)) {
+      if (scanLinkChunk(text, groupStart, end, raw, tagged)) continue;
+      raw.length = saved;
+    }
     const group = text.slice(groupStart, end);
     const known = cache.get(group);
     if (known !== undefined) {
@@ -98,7 +112,7 @@ export function fastWordTokens(text: string, rules: Pick<TextRules, 'drop' | 'co
     const pairs = results[g] as string[];
     const group = slowGroups[g] as string;
     g++;
-    if (group.length <= CACHE_MAX_LENGTH) cache.set(group, pairs);
+    if (group.length <= CACHE_MAX_LENGTH) cache.set(detached(group), pairs.map(detached));
     finishTokens(pairs, rules, out);
   }
   return tagged ? finishTokens(raw, rules, out, from, raw.length) : out;

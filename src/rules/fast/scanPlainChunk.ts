@@ -4,6 +4,7 @@ const LETTER = 1;
 const DIGIT = 2;
 const PUNCT = 3;
 const CURRENCY = 4;
+const SYMBOL = 5;
 
 const CLASS = new Uint8Array(256);
 for (let c = 0x61; c <= 0x7a; c++) CLASS[c] = LETTER;
@@ -16,6 +17,9 @@ for (let c = 0x30; c <= 0x39; c++) CLASS[c] = DIGIT;
 for (const ch of ',.!?;:"()[]{}-') CLASS[ch.charCodeAt(0)] = PUNCT;
 // wink's currency signs below U+0100.
 for (const ch of '$£¥') CLASS[ch.charCodeAt(0)] = CURRENCY;
+// wink's symbols below U+0100 that no earlier rule of its can claim without an `@` (e-mail, mention)
+// or a `#` (hashtag) in the chunk, both left out; `<` is taken only when no `3` follows (`<3`).
+for (const ch of '~%^+=*|/<>&') CLASS[ch.charCodeAt(0)] = SYMBOL;
 
 // After ':' or ';' only these may follow without risking an emoticon (`:-)`, `;d`, `:[`…). No letter
 // may follow, which also keeps out times written `10:am`.
@@ -28,6 +32,9 @@ const SEMICOLON = 0x3b;
 const DOT = 0x2e;
 const COMMA = 0x2c;
 const HYPHEN = 0x2d;
+const SLASH = 0x2f;
+const LESS_THAN = 0x3c;
+const THREE = 0x33;
 
 function classAt(text: string, i: number): number {
   const code = text.charCodeAt(i);
@@ -35,52 +42,70 @@ function classAt(text: string, i: number): number {
 }
 
 /**
- * Tokenizes directly the chunk that starts at `start` (a chunk ends at white space or the end of the
- * text) as far as every wink-tokenizer rule that could apply is one this scanner reproduces: runs of
- * Latin-1 letters (`word`), ASCII digits joined by single `.` `,` `-` (`number`), single punctuation
- * marks (`punctuation`) and `$ £ ¥` (`currency`). It stops at any other character, at a letter right
- * after a digit (times, ordinals), and at a `:`/`;` followed by anything but `, . ! ? " : ;`, a digit or
- * white space (emoticons, `10:am`). Appends value/tag pairs to `raw` (values alone when `tagged` is
- * false), in wink's order and with wink's tags, and returns where it stopped: the chunk was plain only if that is its end (white space or the
- * end of the text); otherwise the caller must drop what was appended.
+ * Whether the two code units after a digit could begin wink's time suffix (`am`, `a.m.`, `pm`, `hours`,
+ * `hrs`) or an ordinal's (`th`, `st`, `nd`, `rd`), in either case: a conservative test (`ho` and `hr`
+ * stand for `hours` and `hrs`), so a letter after a digit is taken only when neither rule can match.
+ */
+function mayStartSuffix(first: number, second: number): boolean {
+  const a = first | 0x20;
+  const b = second | 0x20;
+  if (a === 0x61 || a === 0x70) return b === 0x6d || second === DOT; // a/p then m or '.'
+  if (a === 0x68) return b === 0x6f || b === 0x72; // h then o or r
+  if (a === 0x74) return b === 0x68; // th
+  if (a === 0x73) return b === 0x74; // st
+  if (a === 0x6e || a === 0x72) return b === 0x64; // nd, rd
+  return false;
+}
+
+/**
+ * Tokenizes directly the chunk that starts at `start` (a chunk ends at white space, at `end`, or at the
+ * end of the text) as far as every wink-tokenizer rule that could apply is one this scanner reproduces:
+ * runs of Latin-1 letters (`word`), ASCII digits joined by single `,` `-` `.` `/` (`number`; digits, a
+ * `/` and digits are a number on their own, as wink's first number pattern says), single punctuation
+ * marks (`punctuation`), `$ £ ¥` (`currency`) and `~ % ^ + = * | / < > &` (`symbol`). It stops at any
+ * other character, at letters after a digit that could begin a time or an ordinal (`10am`, `2nd`), at
+ * a `:`/`;` followed by anything but `, . ! ? " : ;`, a digit or white space (emoticons, `10:am`), and
+ * at `<3`. Appends value/tag pairs to `raw` (values alone when `tagged` is false), in wink's order and
+ * with wink's tags, and returns where it stopped: the chunk was plain only if that is its end (white
+ * space, `end` or the end of the text); otherwise the caller must drop what was appended.
  * @example scanPlainChunk('(well-known), ok', 0, raw) // 13; raw gets '(', 'punctuation', 'well', 'word', '-', …
  */
-export function scanPlainChunk(text: string, start: number, raw: string[], tagged = true): number {
-  const end = text.length;
-  // The class of the last item emitted.
-  let previous = OTHER;
+export function scanPlainChunk(text: string, start: number, raw: string[], tagged = true, end = text.length): number {
   let i = start;
   while (i < end) {
     const kind = classAt(text, i);
     if (kind === LETTER) {
-      if (previous === DIGIT) break;
+      if (i > start && classAt(text, i - 1) === DIGIT && i + 1 < end && mayStartSuffix(text.charCodeAt(i), text.charCodeAt(i + 1))) break;
       const from = i;
       for (i++; i < end && classAt(text, i) === LETTER; i++);
       if (tagged) raw.push(text.slice(from, i), 'word');
       else raw.push(text.slice(from, i));
-      previous = LETTER;
     } else if (kind === DIGIT) {
       const from = i;
-      for (;;) {
-        for (i++; i < end && classAt(text, i) === DIGIT; i++);
-        const joint = text.charCodeAt(i);
-        if (i + 1 < end && (joint === DOT || joint === COMMA || joint === HYPHEN) && classAt(text, i + 1) === DIGIT) i++;
-        else break;
+      for (i++; i < end && classAt(text, i) === DIGIT; i++);
+      if (i + 1 < end && text.charCodeAt(i) === SLASH && classAt(text, i + 1) === DIGIT) {
+        // wink's first number pattern: digits, '/', digits; nothing more joins.
+        for (i += 2; i < end && classAt(text, i) === DIGIT; i++);
+      } else {
+        for (;;) {
+          const joint = text.charCodeAt(i);
+          if (i + 1 < end && (joint === DOT || joint === COMMA || joint === HYPHEN || joint === SLASH) && classAt(text, i + 1) === DIGIT) i += 2;
+          else break;
+          for (; i < end && classAt(text, i) === DIGIT; i++);
+        }
       }
       if (tagged) raw.push(text.slice(from, i), 'number');
       else raw.push(text.slice(from, i));
-      previous = DIGIT;
     } else if (kind === PUNCT) {
       const code = text.charCodeAt(i);
       if ((code === COLON || code === SEMICOLON) && i + 1 < end && AFTER_EMOTICON_START[text.charCodeAt(i + 1)] !== 1) break;
       if (tagged) raw.push(text[i] as string, 'punctuation');
       else raw.push(text[i] as string);
-      previous = PUNCT;
       i++;
-    } else if (kind === CURRENCY) {
-      if (tagged) raw.push(text[i] as string, 'currency');
+    } else if (kind === CURRENCY || kind === SYMBOL) {
+      if (kind === SYMBOL && text.charCodeAt(i) === LESS_THAN && i + 1 < end && text.charCodeAt(i + 1) === THREE) break;
+      if (tagged) raw.push(text[i] as string, kind === SYMBOL ? 'symbol' : 'currency');
       else raw.push(text[i] as string);
-      previous = CURRENCY;
       i++;
     } else break;
   }

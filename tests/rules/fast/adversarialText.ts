@@ -22,6 +22,9 @@ export const PIECES: readonly string[] = [
   'Паром', 'πλοίο', 'Μ', 'µ', '東京へ', 'フェリー', '서울', 'नमस्ते', '१२३', '।', 'ฉันชอบ', 'ß', 'Ærø', 'Straße', '×', '÷', 'ſ', 'Ÿ', 'K',
   // plain words and ids
   'ferry', 'Late', 'a3f9c2', 'id-77', 'x', '0', 'e-ticket',
+  // mail-like shapes: headers, addresses in brackets, ids, hex, symbols, slashes between digits
+  '<ann.lee@example.net>;', '(mx4.example.org', '[192.0.2.7])', 'text/plain;', 'charset=utf-8', 'v=1;', '+0000', 'ref-46943-91f2',
+  '835484f3e322', 'b=2c11e4', '>', '>>', '1/2.5', '12/3/4', '10/20am', '4th.', '5a.m', 'x=a.b@c.io', 'https://example.net/help),',
   // characters the fast path treats specially
   '\uE000', '\u0000', '\uFE0F', '\u200D', '\uD83D',
 ];
