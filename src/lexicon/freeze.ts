@@ -64,7 +64,8 @@ export function freeze(tally: Tally, options: FreezeOptions = {}): Lexicon {
   }
   const shape = options.shape ? checkShape({ ...options.shape }) : null;
 
-  const allRanked = rankTokens(tally.counts, 1);
+  // Tie order matters only where tokens are kept; further down only counts are summed (coverage).
+  const allRanked = rankTokens(tally.counts, 1, cap === null ? Infinity : cap + reservedSet.size);
   const ranked = allRanked.filter(([t, n]) => n >= minCount && !reservedSet.has(t));
   const kept = cap === null ? ranked : ranked.slice(0, cap);
   const withLabels = options.labels ?? true;

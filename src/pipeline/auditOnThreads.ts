@@ -21,7 +21,7 @@ export async function auditOnThreads(
   const shape = options.shape === undefined ? lexicon.shape : options.shape;
   const length = shape === null ? null : shape.length;
   const counts = new AuditCounts(lexicon, length);
-  const pool = WorkerPool.start({ kind: 'audit', lexicon: serializeLexicon(lexicon), length }, threads);
+  const pool = WorkerPool.start({ kind: 'audit', lexicon: serializeLexicon(lexicon), length }, threads, lexicon);
   try {
     await inOrder(
       batchesOf(documents),

@@ -84,7 +84,7 @@ export async function encodeCorpus(
     }
     return stats;
   }
-  const pool = WorkerPool.start({ kind: 'encode', lexicon: serializeLexicon(lexicon) }, threads);
+  const pool = WorkerPool.start({ kind: 'encode', lexicon: serializeLexicon(lexicon) }, threads, lexicon);
   try {
     await inOrder(
       batchesOf(documents),

@@ -1,6 +1,8 @@
 import { availableParallelism } from 'node:os';
 import { Worker } from 'node:worker_threads';
 import { LexlockError, type LexlockErrorCode } from '../LexlockError.js';
+import type { Lexicon } from '../lexicon/Lexicon.js';
+import { batchHandler } from './batchHandler.js';
 import type { Batch, WorkerReply, WorkerSetup } from './messages.js';
 
 /** The thread count used when none is asked for: the machine's available parallelism. */
@@ -13,24 +15,43 @@ export function defaultThreads(): number {
 const fromSources = import.meta.url.endsWith('.ts');
 const workerUrl = new URL(fromSources ? './worker.ts' : './worker.js', import.meta.url);
 
+/** Where a batch's reply goes. */
+interface Waiting {
+  resolve: (r: WorkerReply) => void;
+  reject: (e: Error) => void;
+}
+
 interface Slot {
   worker: Worker;
   busy: number;
-  waiting: Map<number, { resolve: (r: WorkerReply) => void; reject: (e: Error) => void }>;
+  waiting: Map<number, Waiting>;
 }
 
-/** A fixed set of worker threads that each take batches of documents and answer one reply a batch. */
+/** Batches a worker may have queued before the next one is handled on the calling thread instead. */
+const QUEUED_PER_WORKER = 2;
+
+/**
+ * Threads that each take batches of documents and answer one reply a batch: `threads - 1` worker
+ * threads, and the calling thread itself, which handles a batch whenever every worker already has
+ * {@link QUEUED_PER_WORKER} queued. So `threads` counts the thread that reads the corpus too, and the
+ * memory of one worker is saved. Replies are the same wherever a batch ran.
+ */
 export class WorkerPool {
   private readonly slots: Slot[];
+  private readonly local: (batch: Batch) => WorkerReply;
 
-  private constructor(slots: Slot[]) {
+  private constructor(slots: Slot[], local: (batch: Batch) => WorkerReply) {
     this.slots = slots;
+    this.local = local;
   }
 
-  /** Starts `threads` workers set up for one job (tally under rules, or encode with a lexicon). */
-  static start(setup: WorkerSetup, threads: number): WorkerPool {
+  /**
+   * Starts a pool of `threads` (at least 2) for one job: tally under rules, or encode or audit with a
+   * lexicon; `lexicon` is the already loaded form of the setup's lexicon, for the calling thread.
+   */
+  static start(setup: WorkerSetup, threads: number, lexicon?: Lexicon): WorkerPool {
     const slots: Slot[] = [];
-    for (let i = 0; i < threads; i++) {
+    for (let i = 0; i < Math.max(1, threads - 1); i++) {
       const worker = fromSources
         ? new Worker(`import('tsx/esm/api').then((m) => m.tsImport(${JSON.stringify(workerUrl.href)}, ${JSON.stringify(import.meta.url)}))`, { eval: true, workerData: setup })
         : new Worker(workerUrl, { workerData: setup });
@@ -40,8 +61,7 @@ export class WorkerPool {
         if (w === undefined) return;
         slot.waiting.delete(reply.id);
         slot.busy -= 1;
-        if ('error' in reply) w.reject(new LexlockError((reply.error.code ?? 'IO') as LexlockErrorCode, reply.error.message));
-        else w.resolve(reply);
+        settle(reply, w);
       });
       worker.on('error', (e) => {
         for (const w of slot.waiting.values()) w.reject(e);
@@ -49,15 +69,19 @@ export class WorkerPool {
       });
       slots.push(slot);
     }
-    return new WorkerPool(slots);
+    return new WorkerPool(slots, batchHandler(setup, lexicon));
   }
 
-  /** Sends a batch to the least busy worker. */
+  /** Sends a batch to the least busy worker, or handles it here when every worker has enough queued. */
   submit(batch: Batch): Promise<WorkerReply> {
     let slot = this.slots[0] as Slot;
     for (const s of this.slots) if (s.busy < slot.busy) slot = s;
-    slot.busy += 1;
     return new Promise((resolve, reject) => {
+      if (slot.busy >= QUEUED_PER_WORKER) {
+        settle(this.local(batch), { resolve, reject });
+        return;
+      }
+      slot.busy += 1;
       slot.waiting.set(batch.id, { resolve, reject });
       slot.worker.postMessage(batch);
     });
@@ -67,4 +91,9 @@ export class WorkerPool {
   async close(): Promise<void> {
     await Promise.all(this.slots.map((s) => s.worker.terminate()));
   }
+}
+
+function settle(reply: WorkerReply, w: Waiting): void {
+  if ('error' in reply) w.reject(new LexlockError((reply.error.code ?? 'IO') as LexlockErrorCode, reply.error.message));
+  else w.resolve(reply);
 }
