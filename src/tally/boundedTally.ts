@@ -31,6 +31,30 @@ export interface BoundedTally {
 }
 
 /**
+ * Pass 1: a Space-Saving summary of `capacity` counters, then only the tokens that could still rank in
+ * the first `places`: a monitored token's true count lies between `count - error` and `count`, so one
+ * whose `count` is below the `places`-th largest `count - error` is beaten by `places` tokens for sure
+ * and need not be counted again. The summary itself is dropped on return: pass 2 holds only these.
+ */
+async function candidatesOf(
+  documents: AsyncIterable<string | LabelledText> | Iterable<string | LabelledText>,
+  rules: TextRules,
+  capacity: number,
+  places: number,
+  minCount: number,
+): Promise<{ candidates: Set<string>; floor: number; total: number }> {
+  const summary = new SpaceSaving(capacity);
+  for await (const doc of documents) {
+    for (const t of tokenize(typeof doc === 'string' ? doc : doc.text, rules)) summary.offer(t);
+  }
+  const lowerBounds = Float64Array.from(summary.entries(), (e) => e.count - e.error).sort().reverse();
+  const bar = Math.max(minCount, lowerBounds.length >= places ? (lowerBounds[places - 1] as number) : 0);
+  const candidates = new Set<string>();
+  for (const e of summary.entries()) if (e.count >= bar) candidates.add(e.token);
+  return { candidates, floor: summary.floor, total: summary.total };
+}
+
+/**
  * Counts a corpus too large for an exact in-memory tally, in two passes and bounded memory, and proves
  * the result is the exact top `cap`: pass 1 finds candidates with Space-Saving (Metwally, Agrawal, El
  * Abbadi 2005), pass 2 counts the candidates exactly; every token that could rank in the cap is then
@@ -44,25 +68,19 @@ export async function boundedTally(
   options: BoundedTallyOptions,
 ): Promise<BoundedTally> {
   const capacity = Math.max(1, Math.floor(options.budgetBytes / BYTES_PER_COUNTER));
-  const summary = new SpaceSaving(capacity);
-  for await (const doc of open()) {
-    for (const t of tokenize(typeof doc === 'string' ? doc : doc.text, rules)) summary.offer(t);
-  }
-  const candidates = new Set<string>();
-  for (const e of summary.entries()) if (e.count >= options.minCount) candidates.add(e.token);
+  const reserved = new Set(options.reserved ?? []);
+  const { candidates, floor, total } = await candidatesOf(open(), rules, capacity, options.cap + reserved.size, options.minCount);
   const tally = new Tally(rules);
   for await (const doc of open()) {
     const tokens = tokenize(typeof doc === 'string' ? doc : doc.text, rules);
     tally.addSome(tokens, typeof doc === 'string' ? undefined : doc.label, candidates);
   }
-  const floor = summary.floor;
-  const reserved = new Set(options.reserved ?? []);
   const ranked = rankTokens(tally.counts, options.minCount).filter(([t]) => !reserved.has(t));
   const last = ranked[options.cap - 1];
   const proven = last === undefined ? floor < options.minCount : last[1] > floor;
   if (!proven) {
     const threshold = last === undefined ? options.minCount : last[1];
-    const needed = Math.ceil(summary.total / Math.max(threshold, 1)) + 1;
+    const needed = Math.ceil(total / Math.max(threshold, 1)) + 1;
     const mib = Math.ceil((needed * BYTES_PER_COUNTER) / 2 ** 20);
     throw new LexlockError(
       'MEMORY_LIMIT',

@@ -3,6 +3,8 @@ export type PhaseName =
   | 'tokenize'
   | 'plain'
   | 'build'
+  /** `lexlock build` as users run it: the CLI, default thread count. */
+  | 'build-cli'
   | 'baseline-build'
   | 'encode-noop'
   | 'encode-npy'

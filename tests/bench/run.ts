@@ -21,11 +21,12 @@ interface Corpus {
   distinct?: number;
 }
 
-const PHASES: readonly PhaseName[] = ['plain', 'tokenize', 'build', 'baseline-build', 'encode-noop', 'encode-npy', 'baseline-encode', 'audit'];
+const PHASES: readonly PhaseName[] = ['plain', 'tokenize', 'build', 'build-cli', 'baseline-build', 'encode-noop', 'encode-npy', 'baseline-encode', 'audit'];
 /** Which hand-written step each lexlock phase is compared with. */
 const BASELINE_OF: Partial<Record<PhaseName, PhaseName>> = {
   tokenize: 'plain',
   build: 'baseline-build',
+  'build-cli': 'baseline-build',
   'encode-noop': 'baseline-encode',
   'encode-npy': 'baseline-encode',
   audit: 'baseline-encode',
@@ -33,7 +34,8 @@ const BASELINE_OF: Partial<Record<PhaseName, PhaseName>> = {
 const TITLE: Record<PhaseName, string> = {
   plain: '(a) plain tokenizer',
   tokenize: 'tokenize',
-  build: 'build',
+  build: 'build (1 thread)',
+  'build-cli': 'build (CLI, all cores)',
   'baseline-build': '(b) baseline count+sort',
   'encode-noop': 'encode (no-op sink)',
   'encode-npy': 'encode (.npy, CLI)',
@@ -86,6 +88,15 @@ function corpusRows(corpus: Corpus, results: Map<PhaseName, PhaseResult>): strin
   });
 }
 
+/** Fit + encode through the CLI against the baseline's count+sort plus encode, with the fit's peak memory. */
+function endToEndLine(corpus: Corpus, results: Map<PhaseName, PhaseResult>): string {
+  const s = (phase: PhaseName) => results.get(phase)?.seconds ?? 0;
+  const ours = s('build-cli') + s('encode-npy');
+  const theirs = s('baseline-build') + s('baseline-encode');
+  const fitRss = (results.get('build-cli')?.maxRssKiB ?? 0) / 1024;
+  return `${corpus.name}: ${fixed(ours, 2)} s vs ${fixed(theirs, 2)} s, ${ours > 0 ? fixed(theirs / ours, 2) : 'n/a'}x; fit peak RSS ${fixed(fitRss, 0)} MB`;
+}
+
 async function main(): Promise<void> {
   const options = benchOptions(process.argv.slice(2));
   const scratch = await mkdtemp(join(tmpdir(), 'lexlock-bench-'));
@@ -104,10 +115,12 @@ async function main(): Promise<void> {
       corpora.push({ name: 'large-vocab', path: join(scratch, 'large.txt'), written, length: 64, distinct: written.distinctTokens });
     }
     const rows: string[][] = [];
+    const endToEnd: string[] = [];
     let scaling: number | null = null;
     for (const corpus of corpora) {
       const results = await measureCorpus(corpus, scratch);
       rows.push(...corpusRows(corpus, results));
+      endToEnd.push(endToEndLine(corpus, results));
       if (corpus.name === 'mail') scaling = await threadScaling({ phase: 'build', corpus: corpus.path, lexicon: join(scratch, 'scaling.json'), out: scratch, cap: 20_000, length: corpus.length });
       const built = results.get('build');
       if (built !== undefined) corpus.distinct = built.figures['distinctTokens'] ?? 0;
@@ -138,6 +151,8 @@ async function main(): Promise<void> {
     out.push('tokenize and (a) exclude reading (texts loaded first); every other phase includes reading the corpus. Peak RSS is');
     out.push(`each phase's own child process (process.resourceUsage().maxRSS); an idle child (Node, tsx loader, lexlock) peaks at ${fixed(idle.maxRssKiB / 1024, 0)} MB.`);
     out.push('');
+    out.push('End to end, fit + encode (`lexlock build` then `lexlock encode`, all cores) vs the baseline (b) count+sort then encode:');
+    for (const line of endToEnd) out.push(`  ${line}`);
     out.push(`Thread scaling, build, 1 -> 2 threads: ${scaling === null ? 'n/a' : `${fixed(scaling, 2)}x`}`);
     out.push(`Serving, lexicon of ${f('tokens')} tokens (${fixed(latency.maxRssKiB / 1024, 0)} MB peak RSS):`);
     out.push(`  load: parseLexicon ${fixed(f('parseMs'))} ms, loadLexicon ${fixed(f('loadMs'))} ms (median of 12)`);

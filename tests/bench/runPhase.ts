@@ -56,6 +56,18 @@ async function measureBuild(spec: PhaseSpec): Promise<Measured> {
   return { seconds: time, figures: { distinctTokens: tally.types, size: lexicon.size } };
 }
 
+async function measureBuildCli(spec: PhaseSpec): Promise<Measured> {
+  const said: string[] = [];
+  const sink = { write: (text: string) => said.push(text) };
+  const out = `${spec.lexicon}.cli.json`;
+  const args = ['build', spec.corpus, '-o', out, '--cap', String(spec.cap), '--length', String(spec.length), '--quiet', '--force'];
+  const start = process.hrtime.bigint();
+  const code = await run(spec.label === undefined ? args : [...args, '--label', spec.label], { stdout: sink, stderr: sink, env: {} });
+  const time = seconds(start);
+  if (code !== 0) throw new Error(`lexlock build exited ${code}: ${said.join('')}`);
+  return { seconds: time, figures: {} };
+}
+
 async function measureBaselineBuild(spec: PhaseSpec): Promise<Measured> {
   const start = process.hrtime.bigint();
   const counts = new Map<string, number>();
@@ -150,6 +162,7 @@ const PHASES: Record<PhaseSpec['phase'], (spec: PhaseSpec) => Promise<Measured>>
   },
   plain: (spec) => measureTokenize(spec, plainTokens),
   build: measureBuild,
+  'build-cli': measureBuildCli,
   'baseline-build': measureBaselineBuild,
   'encode-noop': measureEncodeNoop,
   'encode-npy': measureEncodeNpy,

@@ -60,6 +60,18 @@ describe('the lexlock executable', () => {
     expect(await readFile(tmp.path('e2.jsonl'), 'utf8')).toBe(await readFile(tmp.path('e1.jsonl'), 'utf8'));
   });
 
+  // --memory-limit runs the command again with the V8 heap capped (src/heapLimitFor.ts): same lexicon, same exit codes.
+  it('builds the same lexicon with --memory-limit, in a process whose heap is capped, and passes its exit code on', async () => {
+    const plain = lexlock('build', demo, '-o', tmp.path('plain.json'), '--label', 'topic', '--cap', '500', '--quiet');
+    const bounded = lexlock('build', demo, '-o', tmp.path('bounded.json'), '--label', 'topic', '--cap', '500', '--quiet', '--memory-limit', '64');
+    expect([plain.status, plain.stderr, bounded.status, bounded.stderr]).toEqual([0, '', 0, '']);
+    const [a, b] = await Promise.all(['plain.json', 'bounded.json'].map(async (f) => parseLexicon(await readFile(tmp.path(f), 'utf8'))));
+    expect(b.fingerprint).toBe(a.fingerprint);
+    const refused = lexlock('build', demo, '-o', tmp.path('x.json'), '--memory-limit', '64', '--cap', '0');
+    expect(refused.status).toBe(2);
+    expect(refused.stderr).toContain('--cap');
+  });
+
   // Atomic save: killed at any moment, build leaves either no lexicon or a complete, valid one.
   it('never leaves a half-written lexicon when killed', async () => {
     const big = tmp.path('big.txt');
