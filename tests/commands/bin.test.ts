@@ -65,8 +65,8 @@ describe('the lexlock executable', () => {
     const plain = lexlock('build', demo, '-o', tmp.path('plain.json'), '--label', 'topic', '--cap', '500', '--quiet');
     const bounded = lexlock('build', demo, '-o', tmp.path('bounded.json'), '--label', 'topic', '--cap', '500', '--quiet', '--memory-limit', '64');
     expect([plain.status, plain.stderr, bounded.status, bounded.stderr]).toEqual([0, '', 0, '']);
-    const [a, b] = await Promise.all(['plain.json', 'bounded.json'].map(async (f) => parseLexicon(await readFile(tmp.path(f), 'utf8'))));
-    expect(b.fingerprint).toBe(a.fingerprint);
+    const unbounded = parseLexicon(await readFile(tmp.path('plain.json'), 'utf8'));
+    expect(parseLexicon(await readFile(tmp.path('bounded.json'), 'utf8')).fingerprint).toBe(unbounded.fingerprint);
     const refused = lexlock('build', demo, '-o', tmp.path('x.json'), '--memory-limit', '64', '--cap', '0');
     expect(refused.status).toBe(2);
     expect(refused.stderr).toContain('--cap');
