@@ -65,7 +65,7 @@ export function freeze(tally: Tally, options: FreezeOptions = {}): Lexicon {
   const shape = options.shape ? checkShape({ ...options.shape }) : null;
 
   // Tie order matters only where tokens are kept; further down only counts are summed (coverage).
-  const allRanked = rankTokens(tally.counts, 1, cap === null ? Infinity : cap + reservedSet.size);
+  const allRanked = rankTokens(tally.entries(), 1, cap === null ? Infinity : cap + reservedSet.size);
   const ranked = allRanked.filter(([t, n]) => n >= minCount && !reservedSet.has(t));
   const kept = cap === null ? ranked : ranked.slice(0, cap);
   const withLabels = options.labels ?? true;
@@ -128,7 +128,7 @@ export function freeze(tally: Tally, options: FreezeOptions = {}): Lexicon {
       .map(([label, c]) => ({ label, documents: c.documents, tokens: c.tokens })),
     coverage,
     truncation,
-    seen: SeenTokens.of(tally.counts.keys(), tally.types)?.toJSON() ?? null,
+    seen: SeenTokens.of(tally.tokenList(), tally.types)?.toJSON() ?? null,
   };
 
   return new Lexicon(encoding, fit, makeCanaries(tally.rules, options.snippets ?? []));

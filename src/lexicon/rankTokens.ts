@@ -6,12 +6,14 @@
  * sorting the many one-off tokens of a large corpus; counts are descending throughout.
  * @example rankTokens(new Map([['b', 2], ['a', 2], ['c', 5]]), 1) // [['c', 5], ['a', 2], ['b', 2]]
  */
-export function rankTokens(counts: ReadonlyMap<string, number>, minCount = 1, orderedFirst = Infinity): Array<[string, number]> {
+export function rankTokens(counts: Iterable<readonly [string, number, ...unknown[]]>, minCount = 1, orderedFirst = Infinity): Array<[string, number]> {
   // Grouped by count, then each group in the engine's own string sort (the default sort compares
   // UTF-16 code units, as the rule says): far faster than one comparator over every token when most
   // tokens share a count, as the one-off tokens of a large corpus do.
   const byCount = new Map<number, string[]>();
-  for (const [token, n] of counts) {
+  for (const entry of counts) {
+    const token = entry[0];
+    const n = entry[1];
     if (n < minCount) continue;
     const group = byCount.get(n);
     if (group === undefined) byCount.set(n, [token]);

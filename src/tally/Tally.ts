@@ -80,6 +80,11 @@ export class Tally {
     for (const [token, e] of this.#entries) yield [token, e.count, e.documents];
   }
 
+  /** Every counted token, in the order first counted. */
+  tokenList(): IterableIterator<string> {
+    return this.#entries.keys();
+  }
+
   /** Occurrences per token: a read-only snapshot, made once and kept until the tally changes. */
   get counts(): ReadonlyMap<string, number> {
     if (this.#counts === null) {
