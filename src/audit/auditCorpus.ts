@@ -44,7 +44,7 @@ export async function auditCorpus(
 export function auditReport(counts: AuditCounts, lexicon: Lexicon, options: AuditOptions = {}): CoverageReport {
   const shape = options.shape === undefined ? lexicon.shape : options.shape;
   const { tally, labels, oovTokens, truncatedDocuments, droppedTokens, paddingTokens } = counts;
-  const ranked = rankTokens(tally.counts);
+  const ranked = rankTokens(tally.entries());
   const rankedCounts = ranked.map(([, n]) => n);
   const chosenCap = lexicon.encoding.tokens.length - lexicon.encoding.layout.reserved;
   // `ranked` is in count-then-string order already, so its OOV tokens are too.

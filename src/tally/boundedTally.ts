@@ -47,10 +47,11 @@ async function candidatesOf(
   for await (const doc of documents) {
     for (const t of tokenize(typeof doc === 'string' ? doc : doc.text, rules)) summary.offer(t);
   }
-  const lowerBounds = Float64Array.from(summary.entries(), (e) => e.count - e.error).sort().reverse();
+  const monitored = [...summary.entries()];
+  const lowerBounds = Float64Array.from(monitored, (e) => e.count - e.error).sort().reverse();
   const bar = Math.max(minCount, lowerBounds.length >= places ? (lowerBounds[places - 1] as number) : 0);
   const candidates = new Set<string>();
-  for (const e of summary.entries()) if (e.count >= bar) candidates.add(e.token);
+  for (const e of monitored) if (e.count >= bar) candidates.add(e.token);
   return { candidates, floor: summary.floor, total: summary.total };
 }
 
@@ -75,7 +76,7 @@ export async function boundedTally(
     const tokens = tokenize(typeof doc === 'string' ? doc : doc.text, rules);
     tally.addSome(tokens, typeof doc === 'string' ? undefined : doc.label, candidates);
   }
-  const ranked = rankTokens(tally.counts, options.minCount).filter(([t]) => !reserved.has(t));
+  const ranked = rankTokens(tally.entries(), options.minCount).filter(([t]) => !reserved.has(t));
   const last = ranked[options.cap - 1];
   const proven = last === undefined ? floor < options.minCount : last[1] > floor;
   if (!proven) {
