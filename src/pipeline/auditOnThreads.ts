@@ -1,10 +1,10 @@
-import { serializeLexicon } from '../artifact/serializeLexicon.js';
 import { AuditCounts } from '../audit/AuditCounts.js';
 import { auditCorpus, auditReport, type AuditOptions } from '../audit/auditCorpus.js';
 import type { CoverageReport } from '../audit/CoverageReport.js';
 import type { Lexicon } from '../lexicon/Lexicon.js';
 import type { LabelledText } from '../tally/Tally.js';
-import { batchesOf, inOrder } from '../workers/batches.js';
+import { IN_FLIGHT_PER_THREAD, batchesOf, inOrder } from '../workers/batches.js';
+import type { WorkerReply } from '../workers/messages.js';
 import { WorkerPool } from '../workers/WorkerPool.js';
 
 /**
@@ -21,16 +21,13 @@ export async function auditOnThreads(
   const shape = options.shape === undefined ? lexicon.shape : options.shape;
   const length = shape === null ? null : shape.length;
   const counts = new AuditCounts(lexicon, length);
-  const pool = WorkerPool.start({ kind: 'audit', lexicon: serializeLexicon(lexicon), length }, threads, lexicon);
+  const pool = WorkerPool.start({ kind: 'audit', encoding: lexicon.encoding, fingerprint: lexicon.fingerprint, length }, threads, { lexicon, audit: counts });
+  const merge = (reply: WorkerReply) => {
+    if ('audit' in reply) counts.merge(reply.audit);
+  };
   try {
-    await inOrder(
-      batchesOf(documents),
-      (b) => pool.submit(b),
-      (_b, reply) => {
-        if ('audit' in reply) counts.merge(reply.audit);
-      },
-      threads * 2,
-    );
+    await inOrder(batchesOf(documents), (b) => pool.submit(b), (_b, reply) => merge(reply), threads * IN_FLIGHT_PER_THREAD);
+    for (const reply of await pool.flush()) merge(reply);
   } finally {
     await pool.close();
   }

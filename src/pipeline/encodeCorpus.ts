@@ -1,8 +1,7 @@
 import type { Lexicon } from '../lexicon/Lexicon.js';
 import { shapeInto, type Shape } from '../lexicon/Shape.js';
-import { serializeLexicon } from '../artifact/serializeLexicon.js';
 import type { LabelledText } from '../tally/Tally.js';
-import { batchesOf, inOrder } from '../workers/batches.js';
+import { IN_FLIGHT_PER_THREAD, batchesOf, inOrder } from '../workers/batches.js';
 import { WorkerPool } from '../workers/WorkerPool.js';
 
 /** Receives encoded rows in corpus order. */
@@ -84,7 +83,7 @@ export async function encodeCorpus(
     }
     return stats;
   }
-  const pool = WorkerPool.start({ kind: 'encode', lexicon: serializeLexicon(lexicon) }, threads, lexicon);
+  const pool = WorkerPool.start({ kind: 'encode', encoding: lexicon.encoding, fingerprint: lexicon.fingerprint }, threads, { lexicon });
   try {
     await inOrder(
       batchesOf(documents),
@@ -99,7 +98,7 @@ export async function encodeCorpus(
           at += n;
         }
       },
-      threads * 2,
+      threads * IN_FLIGHT_PER_THREAD,
     );
   } finally {
     await pool.close();

@@ -1,6 +1,7 @@
 import type { TextRules } from '../rules/TextRules.js';
 import { Tally, type LabelledText } from '../tally/Tally.js';
-import { batchesOf, inOrder } from '../workers/batches.js';
+import { IN_FLIGHT_PER_THREAD, batchesOf, inOrder } from '../workers/batches.js';
+import type { WorkerReply } from '../workers/messages.js';
 import { WorkerPool } from '../workers/WorkerPool.js';
 
 /** How many corpus snippets a lexicon keeps as canaries, and how long each may be. */
@@ -58,16 +59,13 @@ export async function tallyCorpus(
     }
     return { tally, snippets: keeper.snippets };
   }
-  const pool = WorkerPool.start({ kind: 'tally', rules }, threads);
+  const pool = WorkerPool.start({ kind: 'tally', rules }, threads, { tally });
+  const merge = (reply: WorkerReply) => {
+    if ('tally' in reply) tally.mergeCounts(reply.tally);
+  };
   try {
-    await inOrder(
-      batchesOf(documents, keeper.see),
-      (b) => pool.submit(b),
-      (_b, reply) => {
-        if ('tally' in reply) tally.mergeCounts(reply.tally);
-      },
-      threads * 2,
-    );
+    await inOrder(batchesOf(documents, keeper.see), (b) => pool.submit(b), (_b, reply) => merge(reply), threads * IN_FLIGHT_PER_THREAD);
+    for (const reply of await pool.flush()) merge(reply);
   } finally {
     await pool.close();
   }

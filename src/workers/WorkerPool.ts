@@ -1,9 +1,8 @@
 import { availableParallelism } from 'node:os';
 import { Worker } from 'node:worker_threads';
 import { LexlockError, type LexlockErrorCode } from '../LexlockError.js';
-import type { Lexicon } from '../lexicon/Lexicon.js';
-import { batchHandler } from './batchHandler.js';
-import type { Batch, WorkerReply, WorkerSetup } from './messages.js';
+import { batchHandler, type BatchHandler, type LocalTargets } from './batchHandler.js';
+import type { Batch, Flush, WorkerReply, WorkerSetup } from './messages.js';
 
 /** The thread count used when none is asked for: the machine's available parallelism. */
 export function defaultThreads(): number {
@@ -27,8 +26,11 @@ interface Slot {
   waiting: Map<number, Waiting>;
 }
 
-/** Batches a worker may have queued before the next one is handled on the calling thread instead. */
-const QUEUED_PER_WORKER = 2;
+/**
+ * Batches a worker may have queued before the next one is handled on the calling thread instead: the
+ * calling thread also reads (and for encode writes), so it takes a batch only when workers are well fed.
+ */
+const QUEUED_PER_WORKER = 4;
 
 /**
  * Threads that each take batches of documents and answer one reply a batch: `threads - 1` worker
@@ -38,18 +40,19 @@ const QUEUED_PER_WORKER = 2;
  */
 export class WorkerPool {
   private readonly slots: Slot[];
-  private readonly local: (batch: Batch) => WorkerReply;
+  private readonly local: BatchHandler;
 
-  private constructor(slots: Slot[], local: (batch: Batch) => WorkerReply) {
+  private constructor(slots: Slot[], local: BatchHandler) {
     this.slots = slots;
     this.local = local;
   }
 
   /**
    * Starts a pool of `threads` (at least 2) for one job: tally under rules, or encode or audit with a
-   * lexicon; `lexicon` is the already loaded form of the setup's lexicon, for the calling thread.
+   * lexicon. `local` is for the calling thread: the already loaded lexicon of the setup, and the
+   * job's final tally or audit counts, which its own batches are counted into.
    */
-  static start(setup: WorkerSetup, threads: number, lexicon?: Lexicon): WorkerPool {
+  static start(setup: WorkerSetup, threads: number, local: LocalTargets = {}): WorkerPool {
     const slots: Slot[] = [];
     for (let i = 0; i < Math.max(1, threads - 1); i++) {
       const worker = fromSources
@@ -69,7 +72,7 @@ export class WorkerPool {
       });
       slots.push(slot);
     }
-    return new WorkerPool(slots, batchHandler(setup, lexicon));
+    return new WorkerPool(slots, batchHandler(setup, local));
   }
 
   /** Sends a batch to the least busy worker, or handles it here when every worker has enough queued. */
@@ -78,19 +81,38 @@ export class WorkerPool {
     for (const s of this.slots) if (s.busy < slot.busy) slot = s;
     return new Promise((resolve, reject) => {
       if (slot.busy >= QUEUED_PER_WORKER) {
-        settle(this.local(batch), { resolve, reject });
+        settle(this.local.handle(batch), { resolve, reject });
         return;
       }
-      slot.busy += 1;
-      slot.waiting.set(batch.id, { resolve, reject });
-      slot.worker.postMessage(batch);
+      send(slot, batch, { resolve, reject });
     });
+  }
+
+  /**
+   * Asks every thread for the counts it still keeps (tally and audit jobs), once all batches are in:
+   * the replies to merge, the calling thread's too. Flushes are numbered below zero, apart from batches.
+   */
+  async flush(): Promise<WorkerReply[]> {
+    const replies = this.slots.map(
+      (slot, i) =>
+        new Promise<WorkerReply>((resolve, reject) => {
+          send(slot, { id: -1 - i, flush: true }, { resolve, reject });
+        }),
+    );
+    const own = new Promise<WorkerReply>((resolve, reject) => settle(this.local.flush(-1 - this.slots.length), { resolve, reject }));
+    return Promise.all([own, ...replies]);
   }
 
   /** Stops every worker. */
   async close(): Promise<void> {
     await Promise.all(this.slots.map((s) => s.worker.terminate()));
   }
+}
+
+function send(slot: Slot, message: Batch | Flush, w: Waiting): void {
+  slot.busy += 1;
+  slot.waiting.set(message.id, w);
+  slot.worker.postMessage(message);
 }
 
 function settle(reply: WorkerReply, w: Waiting): void {

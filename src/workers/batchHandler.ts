@@ -1,28 +1,66 @@
-import { parseLexicon } from '../artifact/parseLexicon.js';
 import { AuditCounts } from '../audit/AuditCounts.js';
 import { isLexlockError } from '../LexlockError.js';
-import type { Lexicon } from '../lexicon/Lexicon.js';
+import { Lexicon } from '../lexicon/Lexicon.js';
 import { Tally } from '../tally/Tally.js';
 import type { Batch, WorkerReply, WorkerSetup } from './messages.js';
 
 /**
+ * Distinct tokens a tally or audit job keeps across batches before it sends them on: merging a
+ * thread's counts costs a lookup per distinct token, so keeping them saves merging the common tokens
+ * again for every batch, and the bound keeps a thread's memory from growing with the corpus.
+ */
+export const KEPT_TYPES = 100_000;
+
+/** Where the calling thread's own batches are counted: straight into the job's final counts. */
+export interface LocalTargets {
+  lexicon?: Lexicon;
+  tally?: Tally;
+  audit?: AuditCounts;
+}
+
+/** Handles batches of one job and answers flushes. */
+export interface BatchHandler {
+  handle(batch: Batch): WorkerReply;
+  /** The counts kept so far (tally and audit jobs; `kept` when there are none or they went to a target). */
+  flush(id: number): WorkerReply;
+}
+
+/**
  * The one way a batch is handled, in a worker thread or on the thread that reads the corpus: tallied
  * under the rules, counted for an audit, or encoded, answered as a {@link WorkerReply} (errors too).
- * `lexicon` saves parsing the setup's lexicon text again where it is already loaded.
+ * Tally and audit counts are kept across batches (see {@link KEPT_TYPES}); given `targets`, the
+ * calling thread counts into the job's final tally or audit counts instead, and never sends them.
+ * The encoding of a setup was checked where it was loaded, so it is not checked again (and a worker
+ * never loads the schema code).
  */
-export function batchHandler(setup: WorkerSetup, lexicon?: Lexicon): (batch: Batch) => WorkerReply {
-  const loaded = setup.kind === 'tally' ? null : (lexicon ?? parseLexicon(setup.lexicon, { checkCanaries: false }));
+export function batchHandler(setup: WorkerSetup, targets: LocalTargets = {}): BatchHandler {
+  const lexicon = setup.kind === 'tally' ? null : (targets.lexicon ?? new Lexicon(setup.encoding, null, [], setup.fingerprint));
+  let tally: Tally | null = null;
+  let audit: AuditCounts | null = null;
+  const take = (id: number): WorkerReply => {
+    if (tally !== null && tally !== targets.tally) {
+      const reply: WorkerReply = { id, tally: tally.toCounts() };
+      tally = null;
+      return reply;
+    }
+    if (audit !== null && audit !== targets.audit) {
+      const reply: WorkerReply = { id, audit: audit.parts() };
+      audit = null;
+      return reply;
+    }
+    return { id, kept: true };
+  };
   const handle = (batch: Batch): WorkerReply => {
     if (setup.kind === 'tally') {
-      const tally = new Tally(setup.rules);
-      batch.texts.forEach((text, i) => tally.add({ text, label: batch.labels[i] ?? undefined }));
-      return { id: batch.id, tally: tally.toCounts() };
+      const t = (tally ??= targets.tally ?? new Tally(setup.rules));
+      batch.texts.forEach((text, i) => t.add({ text, label: batch.labels[i] ?? undefined }));
+      return t !== targets.tally && t.types >= KEPT_TYPES ? take(batch.id) : { id: batch.id, kept: true };
     }
-    const lex = loaded as Lexicon;
+    const lex = lexicon as Lexicon;
     if (setup.kind === 'audit') {
-      const counts = new AuditCounts(lex, setup.length);
-      batch.texts.forEach((text, i) => counts.add(text, batch.labels[i] ?? undefined));
-      return { id: batch.id, audit: counts.parts() };
+      const a = (audit ??= targets.audit ?? new AuditCounts(lex, setup.length));
+      batch.texts.forEach((text, i) => a.add(text, batch.labels[i] ?? undefined));
+      return a !== targets.audit && a.tally.types >= KEPT_TYPES ? take(batch.id) : { id: batch.id, kept: true };
     }
     const rows = batch.texts.map((text) => lex.idsOf(lex.tokenize(text)));
     let total = 0;
@@ -37,11 +75,17 @@ export function batchHandler(setup: WorkerSetup, lexicon?: Lexicon): (batch: Bat
     });
     return { id: batch.id, encoded: { ids, lengths } };
   };
-  return (batch) => {
-    try {
-      return handle(batch);
-    } catch (e) {
-      return { id: batch.id, error: isLexlockError(e) ? { message: e.message, code: e.code } : { message: e instanceof Error ? e.message : String(e) } };
-    }
+  return {
+    handle: (batch) => safely(batch.id, () => handle(batch)),
+    flush: (id) => safely(id, () => take(id)),
   };
+}
+
+/** Runs `f`, answering an error reply for anything it throws. */
+function safely(id: number, f: () => WorkerReply): WorkerReply {
+  try {
+    return f();
+  } catch (e) {
+    return { id, error: isLexlockError(e) ? { message: e.message, code: e.code } : { message: e instanceof Error ? e.message : String(e) } };
+  }
 }

@@ -1,12 +1,16 @@
+import type { Encoding } from '../artifact/schema.js';
 import type { AuditParts } from '../audit/AuditCounts.js';
 import type { TallyCounts } from '../tally/Tally.js';
 import type { TextRules } from '../rules/TextRules.js';
 
-/** What a worker is started with: the rules to tally under, or the lexicon file text to encode or audit with. */
+/**
+ * What a worker is started with: the rules to tally under, or the encoding of a lexicon the calling
+ * thread has already loaded and checked, with its fingerprint, to encode or audit with.
+ */
 export type WorkerSetup =
   | { kind: 'tally'; rules: TextRules }
-  | { kind: 'encode'; lexicon: string }
-  | { kind: 'audit'; lexicon: string; length: number | null };
+  | { kind: 'encode'; encoding: Encoding; fingerprint: string }
+  | { kind: 'audit'; encoding: Encoding; fingerprint: string; length: number | null };
 
 /** A batch of documents sent to a worker. */
 export interface Batch {
@@ -15,8 +19,11 @@ export interface Batch {
   labels: Array<string | null>;
 }
 
-/** A worker's tally of one batch (Maps survive structured cloning as they are). */
-export type TallyParts = TallyCounts;
+/** Asks a worker for the counts it has kept so far (tally and audit jobs), which it then forgets. */
+export interface Flush {
+  id: number;
+  flush: true;
+}
 
 /** A worker's ids for one batch: every document's ids one after another, and each one's length. */
 export interface EncodedBatch {
@@ -24,9 +31,13 @@ export interface EncodedBatch {
   lengths: Int32Array;
 }
 
-/** A worker's answer for batch `id`. */
+/**
+ * A worker's answer for batch or flush `id`. Tally and audit jobs keep counting across batches and
+ * answer `kept` until a flush, or until what they keep grows past a bound; then they send it.
+ */
 export type WorkerReply =
-  | { id: number; tally: TallyParts }
+  | { id: number; kept: true }
+  | { id: number; tally: TallyCounts }
   | { id: number; encoded: EncodedBatch }
   | { id: number; audit: AuditParts }
   | { id: number; error: { message: string; code?: string } };

@@ -1,12 +1,12 @@
 // A worker thread: tallies, audits or encodes batches of documents with the same code as the main thread.
 import { parentPort, workerData } from 'node:worker_threads';
 import { batchHandler } from './batchHandler.js';
-import type { Batch, WorkerSetup } from './messages.js';
+import type { Batch, Flush, WorkerSetup } from './messages.js';
 
-const handle = batchHandler(workerData as WorkerSetup);
+const handler = batchHandler(workerData as WorkerSetup);
 
-parentPort?.on('message', (batch: Batch) => {
-  const reply = handle(batch);
+parentPort?.on('message', (message: Batch | Flush) => {
+  const reply = 'flush' in message ? handler.flush(message.id) : handler.handle(message);
   // The id arrays are made here with their own ArrayBuffers, so they can be handed over, not copied.
   if ('encoded' in reply) parentPort?.postMessage(reply, [reply.encoded.ids.buffer as ArrayBuffer, reply.encoded.lengths.buffer as ArrayBuffer]);
   else parentPort?.postMessage(reply);

@@ -21,6 +21,22 @@ describe('worker threads', () => {
     expect(texts[2]).toBe(texts[0]);
   });
 
+  it('tally to the same lexicon when threads send their counts several times (more distinct tokens than a thread keeps)', async () => {
+    const { KEPT_TYPES } = await import('../../src/workers/batchHandler.js');
+    // Letters only, so each word is one token: a, b, ..., z, ba, bb, ...
+    const word = (i: number): string => (i < 26 ? '' : word(Math.floor(i / 26))) + String.fromCharCode(97 + (i % 26));
+    // 3,000 documents of 100 words: every document shares 20 common words, the rest are its own.
+    const docs = Array.from({ length: 3000 }, (_, d) => Array.from({ length: 100 }, (_, k) => word(k < 20 ? k : 20 + d * 80 + k)).join(' '));
+    const lexicons: string[] = [];
+    for (const threads of [1, 2]) {
+      const { tally, snippets } = await tallyCorpus(docs, rules, { threads });
+      expect(tally.types).toBe(20 + 3000 * 80);
+      lexicons.push(serializeLexicon(freeze(tally, { cap: 5000, snippets, now: new Date(0) })));
+    }
+    expect(20 + 3000 * 80).toBeGreaterThan(2 * KEPT_TYPES);
+    expect(lexicons[1]).toBe(lexicons[0]);
+  });
+
   it('encode the same rows in the same order on 1 and 2 threads', async () => {
     const { tally } = await tallyCorpus(readCorpus(demo, { label: 'topic' }), rules);
     const lexicon = freeze(tally, { cap: 800 });
