@@ -4,6 +4,7 @@ import { spawn } from 'node:child_process';
 import { fileURLToPath } from 'node:url';
 import { run } from './cli.js';
 import { heapLimitFor } from './heapLimitFor.js';
+import { limitHeapGrowth } from './limitHeapGrowth.js';
 
 // A closed pipe (`lexlock audit … | head`) is not an error: stop quietly, as other command-line tools do.
 for (const stream of [process.stdout, process.stderr]) {
@@ -23,5 +24,6 @@ if (heapLimit !== null && !process.execArgv.some((a) => a.startsWith('--max-old-
     process.exitCode = code ?? (signal === 'SIGINT' ? 130 : 1);
   });
 } else {
+  limitHeapGrowth();
   process.exitCode = await run(argv, { stdout: process.stdout, stderr: process.stderr, env: process.env });
 }
