@@ -7,7 +7,6 @@ import {
   parseLexicon,
   readCorpus,
   resolveRules,
-  run,
   saveLexicon,
   tallyCorpus,
   tokenize,
@@ -56,18 +55,6 @@ async function measureBuild(spec: PhaseSpec): Promise<Measured> {
   return { seconds: time, figures: { distinctTokens: tally.types, size: lexicon.size } };
 }
 
-async function measureBuildCli(spec: PhaseSpec): Promise<Measured> {
-  const said: string[] = [];
-  const sink = { write: (text: string) => said.push(text) };
-  const out = `${spec.lexicon}.cli.json`;
-  const args = ['build', spec.corpus, '-o', out, '--cap', String(spec.cap), '--length', String(spec.length), '--quiet', '--force'];
-  const start = process.hrtime.bigint();
-  const code = await run(spec.label === undefined ? args : [...args, '--label', spec.label], { stdout: sink, stderr: sink, env: {} });
-  const time = seconds(start);
-  if (code !== 0) throw new Error(`lexlock build exited ${code}: ${said.join('')}`);
-  return { seconds: time, figures: {} };
-}
-
 async function measureBaselineBuild(spec: PhaseSpec): Promise<Measured> {
   const start = process.hrtime.bigint();
   const counts = new Map<string, number>();
@@ -81,16 +68,6 @@ async function measureEncodeNoop(spec: PhaseSpec): Promise<Measured> {
   const start = process.hrtime.bigint();
   const stats = await encodeCorpus(readCorpus(spec.corpus, corpusOptions(spec)), lexicon, lexicon.shape, { row() {} });
   return { seconds: seconds(start), figures: { documents: stats.documents, tokens: stats.tokens } };
-}
-
-async function measureEncodeNpy(spec: PhaseSpec): Promise<Measured> {
-  const said: string[] = [];
-  const sink = { write: (text: string) => said.push(text) };
-  const start = process.hrtime.bigint();
-  const code = await run(['encode', spec.corpus, '--lexicon', spec.lexicon, '-o', spec.out, '--quiet', '--force'], { stdout: sink, stderr: sink, env: {} });
-  const time = seconds(start);
-  if (code !== 0) throw new Error(`lexlock encode exited ${code}: ${said.join('')}`);
-  return { seconds: time, figures: {} };
 }
 
 async function measureBaselineEncode(spec: PhaseSpec): Promise<Measured> {
@@ -155,17 +132,16 @@ async function measureLatency(spec: PhaseSpec): Promise<Measured> {
   };
 }
 
-const PHASES: Record<PhaseSpec['phase'], (spec: PhaseSpec) => Promise<Measured>> = {
+/** The phases run in this process (the command-line phases run dist/bin.js: see spawnPhase). */
+const PHASES: Record<Exclude<PhaseSpec['phase'], 'build-cli' | 'encode-npy'>, (spec: PhaseSpec) => Promise<Measured>> = {
   tokenize: (spec) => {
     const rules = resolveRules();
     return measureTokenize(spec, (text) => tokenize(text, rules));
   },
   plain: (spec) => measureTokenize(spec, plainTokens),
   build: measureBuild,
-  'build-cli': measureBuildCli,
   'baseline-build': measureBaselineBuild,
   'encode-noop': measureEncodeNoop,
-  'encode-npy': measureEncodeNpy,
   'baseline-encode': measureBaselineEncode,
   audit: measureAudit,
   latency: measureLatency,
@@ -174,6 +150,7 @@ const PHASES: Record<PhaseSpec['phase'], (spec: PhaseSpec) => Promise<Measured>>
 
 /** Runs one phase in this process and reports its time, figures and this process's peak memory. */
 export async function runPhase(spec: PhaseSpec): Promise<PhaseResult> {
+  if (spec.phase === 'build-cli' || spec.phase === 'encode-npy') throw new Error(`${spec.phase} runs the built executable: use spawnPhase`);
   const measured = await PHASES[spec.phase](spec);
   return { phase: spec.phase, ...measured, maxRssKiB: process.resourceUsage().maxRSS };
 }

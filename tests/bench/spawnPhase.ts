@@ -4,25 +4,43 @@ import { fileURLToPath } from 'node:url';
 import type { PhaseResult, PhaseSpec } from './PhaseSpec.js';
 
 const here = dirname(fileURLToPath(import.meta.url));
+const root = join(here, '..', '..');
+
+/** The `lexlock` arguments of the phases that run the command-line tool as users do. */
+function cliArguments(spec: PhaseSpec): string[] | null {
+  if (spec.phase === 'build-cli') {
+    const args = ['build', spec.corpus, '-o', `${spec.lexicon}.cli.json`, '--cap', String(spec.cap), '--length', String(spec.length), '--quiet', '--force'];
+    return spec.label === undefined ? args : [...args, '--label', spec.label];
+  }
+  if (spec.phase === 'encode-npy') return ['encode', spec.corpus, '--lexicon', spec.lexicon, '-o', spec.out, '--quiet', '--force'];
+  return null;
+}
+
+function lastLine(stdout: string): string {
+  return stdout.trim().split('\n').pop() ?? '';
+}
 
 /**
- * Runs one phase in a fresh Node process (through tsx, importing the built `lexlock/node`) and returns
- * what it reported, so phases never share a heap and each peak RSS is the phase's own.
+ * Runs one phase in a fresh Node process and returns what it reported, so phases never share a heap
+ * and each peak RSS is the phase's own. Library phases run through tsx (importing the built
+ * `lexlock/node`); command-line phases run `dist/bin.js` itself, with no loader (binPhase.mjs).
  */
 export function spawnPhase(spec: PhaseSpec): Promise<PhaseResult> {
+  const cli = cliArguments(spec);
+  const argv = cli === null ? ['--import', 'tsx', join(here, 'phaseMain.ts'), JSON.stringify(spec)] : [join(here, 'binPhase.mjs'), join(root, 'dist', 'bin.js'), ...cli];
   return new Promise((resolve, reject) => {
-    execFile(
-      process.execPath,
-      ['--import', 'tsx', join(here, 'phaseMain.ts'), JSON.stringify(spec)],
-      { cwd: join(here, '..', '..'), maxBuffer: 16 << 20 },
-      (error, stdout, stderr) => {
-        if (error) {
-          reject(new Error(`phase ${spec.phase} on ${spec.corpus} failed: ${error.message}\n${stderr}`));
-          return;
-        }
-        const last = stdout.trim().split('\n').pop() ?? '';
-        resolve(JSON.parse(last) as PhaseResult);
-      },
-    );
+    execFile(process.execPath, argv, { cwd: root, maxBuffer: 16 << 20 }, (error, stdout, stderr) => {
+      if (error) {
+        reject(new Error(`phase ${spec.phase} on ${spec.corpus} failed: ${error.message}\n${stderr}`));
+        return;
+      }
+      if (cli === null) {
+        resolve(JSON.parse(lastLine(stdout)) as PhaseResult);
+        return;
+      }
+      const ran = JSON.parse(lastLine(stdout)) as { seconds: number; maxRssKiB: number; code: number };
+      if (ran.code !== 0) reject(new Error(`lexlock ${cli.join(' ')} exited ${ran.code}\n${stderr}`));
+      else resolve({ phase: spec.phase, seconds: ran.seconds, maxRssKiB: ran.maxRssKiB, figures: {} });
+    });
   });
 }
