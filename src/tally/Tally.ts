@@ -32,6 +32,8 @@ export interface TallyCounts {
 
 /** What a tally knows of one token. */
 interface TokenEntry {
+  /** The token's number: its place in the order tokens were first counted, from 0. */
+  id: number;
   count: number;
   documents: number;
   /** The number of the last document counted with this token in it (document frequency is counted once a document). */
@@ -68,6 +70,11 @@ export class Tally {
   /** Occurrences of `token` (0 when never counted). */
   countOf(token: string): number {
     return this.#entries.get(token)?.count ?? 0;
+  }
+
+  /** The number of `token`: its place in the order first counted (as {@link Tally.entries}), or -1. */
+  numberOf(token: string): number {
+    return this.#entries.get(token)?.id ?? -1;
   }
 
   /** Documents `token` occurs in (0 when never counted). */
@@ -110,7 +117,7 @@ export class Tally {
 
   /** Counts one document's tokens (already tokenized under `this.rules`). */
   addTokens(tokens: readonly string[], label?: string): this {
-    return this.addSome(tokens, label, null);
+    return this.#add(tokens, label, null, null);
   }
 
   /**
@@ -118,23 +125,39 @@ export class Tally {
    * tokens `keep` accepts (null: all), for a second pass that counts known candidates exactly.
    */
   addSome(tokens: readonly string[], label: string | undefined, keep: ReadonlySet<string> | null): this {
+    return this.#add(tokens, label, keep, null);
+  }
+
+  /**
+   * Counts one document's tokens as {@link Tally.addTokens} does and writes each token's number
+   * (see {@link Tally.numberOf}) into `numbers`, which must hold at least `tokens.length`.
+   */
+  addNumbered(tokens: readonly string[], label: string | undefined, numbers: Int32Array): this {
+    return this.#add(tokens, label, null, numbers);
+  }
+
+  #add(tokens: readonly string[], label: string | undefined, keep: ReadonlySet<string> | null, numbers: Int32Array | null): this {
     this.#changed();
     this.documents += 1;
     const document = this.documents;
     this.tokens += tokens.length;
     this.lengths.set(tokens.length, (this.lengths.get(tokens.length) ?? 0) + 1);
     const entries = this.#entries;
-    for (const t of tokens) {
+    for (let k = 0; k < tokens.length; k++) {
+      const t = tokens[k] as string;
       if (keep !== null && !keep.has(t)) continue;
-      const e = entries.get(t);
-      if (e === undefined) entries.set(detached(t), { count: 1, documents: 1, last: document });
-      else {
+      let e = entries.get(t);
+      if (e === undefined) {
+        e = { id: entries.size, count: 1, documents: 1, last: document };
+        entries.set(detached(t), e);
+      } else {
         e.count += 1;
         if (e.last !== document) {
           e.last = document;
           e.documents += 1;
         }
       }
+      if (numbers !== null) numbers[k] = e.id;
     }
     if (label !== undefined) addLabel(this.labels, label, 1, tokens.length);
     return this;
@@ -148,7 +171,7 @@ export class Tally {
     this.#changed();
     const e = this.#entries.get(token);
     // `last` 0 matches no document counted here, so a later document still counts as a new one.
-    if (e === undefined) this.#entries.set(token, { count, documents, last: 0 });
+    if (e === undefined) this.#entries.set(token, { id: this.#entries.size, count, documents, last: 0 });
     else {
       e.count += count;
       e.documents += documents;

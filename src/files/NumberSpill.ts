@@ -1,0 +1,99 @@
+import { open, rm, type FileHandle } from 'node:fs/promises';
+import { LexlockError } from '../LexlockError.js';
+import { ioError } from './ioError.js';
+
+/** Numbers a block holds before it is written (4 MiB). */
+const BLOCK_INTS = 1 << 20;
+
+/** One document read back from a spill: its label's index (-1: none) and its token numbers. */
+export interface SpilledDocument {
+  label: number;
+  numbers: Int32Array;
+}
+
+/**
+ * A temporary file of documents as token numbers, written once in corpus order and read back once in
+ * the same order: a build that also encodes keeps its corpus here instead of reading and tokenizing it
+ * again. Blocks of int32 in this machine's byte order (the file never leaves it): a block is its
+ * length in numbers, then its documents, each `label, length, numbers...`.
+ */
+export class NumberSpill {
+  readonly path: string;
+  private readonly handle: FileHandle;
+  private block = new Int32Array(BLOCK_INTS);
+  private used = 0;
+  private written = 0;
+
+  private constructor(path: string, handle: FileHandle) {
+    this.path = path;
+    this.handle = handle;
+  }
+
+  /** Creates the file at `path` (refused if something is there already). */
+  static async create(path: string): Promise<NumberSpill> {
+    try {
+      return new NumberSpill(path, await open(path, 'wx+'));
+    } catch (e) {
+      throw ioError(path, 'creating a temporary file of token numbers', e);
+    }
+  }
+
+  /** Appends one document: its label's index (-1 for none) and the first `length` of `numbers`. */
+  async add(label: number, numbers: Int32Array, length: number): Promise<void> {
+    if (this.used + 2 + length > this.block.length) {
+      await this.writeBlock();
+      if (2 + length > this.block.length) this.block = new Int32Array(2 + length);
+    }
+    const block = this.block;
+    block[this.used] = label;
+    block[this.used + 1] = length;
+    block.set(numbers.subarray(0, length), this.used + 2);
+    this.used += 2 + length;
+  }
+
+  /** The documents in the order added (everything added is written first). */
+  async *documents(): AsyncGenerator<SpilledDocument, void, undefined> {
+    await this.writeBlock();
+    let position = 0;
+    const header = new Int32Array(1);
+    while (position < this.written) {
+      await this.readInto(header, position);
+      const block = new Int32Array(header[0] as number);
+      await this.readInto(block, position + 4);
+      position += 4 + block.byteLength;
+      for (let at = 0; at < block.length; ) {
+        const label = block[at] as number;
+        const length = block[at + 1] as number;
+        yield { label, numbers: block.subarray(at + 2, at + 2 + length) };
+        at += 2 + length;
+      }
+    }
+  }
+
+  /** Closes and deletes the file. */
+  async remove(): Promise<void> {
+    await this.handle.close().catch(() => undefined);
+    await rm(this.path, { force: true });
+  }
+
+  private async writeBlock(): Promise<void> {
+    if (this.used === 0) return;
+    const bytes = new Uint8Array(this.block.buffer, 0, this.used * 4);
+    try {
+      await this.handle.write(new Uint8Array(Int32Array.of(this.used).buffer), 0, 4, this.written);
+      await this.handle.write(bytes, 0, bytes.length, this.written + 4);
+    } catch (e) {
+      throw ioError(this.path, 'writing token numbers to a temporary file', e);
+    }
+    this.written += 4 + bytes.length;
+    this.used = 0;
+  }
+
+  private async readInto(into: Int32Array, position: number): Promise<void> {
+    const bytes = new Uint8Array(into.buffer, into.byteOffset, into.byteLength);
+    const { bytesRead } = await this.handle.read(bytes, 0, bytes.length, position);
+    if (bytesRead !== bytes.length) {
+      throw new LexlockError('IO', `${this.path}: the temporary file of token numbers ended early (${bytesRead} of ${bytes.length} bytes at ${position}); is the disk full, or did something else write to it?`, { file: this.path });
+    }
+  }
+}

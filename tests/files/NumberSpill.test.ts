@@ -1,0 +1,91 @@
+import { readdir, stat, truncate } from 'node:fs/promises';
+import fc from 'fast-check';
+import { describe, expect, it } from 'vitest';
+import { NumberSpill, type SpilledDocument } from '../../src/files/NumberSpill.js';
+import { isLexlockError } from '../../src/LexlockError.js';
+import { freshFolderEachTest } from '../helpers/cli.js';
+
+const tmp = freshFolderEachTest();
+
+async function readBack(spill: NumberSpill): Promise<Array<{ label: number; numbers: number[] }>> {
+  const out: Array<{ label: number; numbers: number[] }> = [];
+  for await (const d of spill.documents()) out.push({ label: d.label, numbers: Array.from(d.numbers) });
+  return out;
+}
+
+// Common practice: a spill file must give back exactly what was written, in the same order.
+describe('NumberSpill', () => {
+  it('gives back every document, label and numbers, in the order added (fast-check)', async () => {
+    let run = 0;
+    await fc.assert(
+      fc.asyncProperty(fc.array(fc.record({ label: fc.integer({ min: -1, max: 9 }), numbers: fc.array(fc.integer({ min: 0, max: 2 ** 31 - 1 }), { maxLength: 40 }) }), { maxLength: 60 }), async (docs) => {
+        const spill = await NumberSpill.create(tmp.path(`spill-${run++}`));
+        try {
+          for (const d of docs) {
+            // The caller's array may be longer than the document and is reused: only `length` counts.
+            const scratch = Int32Array.from([...d.numbers, 7, 7, 7]);
+            await spill.add(d.label, scratch, d.numbers.length);
+            scratch.fill(-5);
+          }
+          expect(await readBack(spill)).toEqual(docs);
+        } finally {
+          await spill.remove();
+        }
+      }),
+      { numRuns: 60 },
+    );
+  });
+
+  it('keeps a document longer than a block whole, between shorter ones', async () => {
+    const spill = await NumberSpill.create(tmp.path('big'));
+    const big = Int32Array.from({ length: (1 << 20) + 3 }, (_, i) => i);
+    await spill.add(0, Int32Array.of(1, 2), 2);
+    await spill.add(4, big, big.length);
+    await spill.add(-1, Int32Array.of(), 0);
+    await spill.add(2, Int32Array.of(9), 1);
+    const docs: SpilledDocument[] = [];
+    for await (const d of spill.documents()) docs.push({ label: d.label, numbers: d.numbers.slice() });
+    expect(docs.map((d) => [d.label, d.numbers.length])).toEqual([[0, 2], [4, big.length], [-1, 0], [2, 1]]);
+    const second = docs[1]?.numbers ?? new Int32Array();
+    expect(Buffer.from(second.buffer, second.byteOffset, second.byteLength).equals(Buffer.from(big.buffer))).toBe(true);
+    expect(Array.from(docs[3]?.numbers ?? [])).toEqual([9]);
+    await spill.remove();
+  });
+
+  it('says so when the file was cut short behind its back', async () => {
+    const path = tmp.path('cut');
+    const spill = await NumberSpill.create(path);
+    await spill.add(1, Int32Array.of(1, 2, 3, 4), 4);
+    const reading = spill.documents();
+    await reading.next().catch(() => undefined); // writes the block, then reads it back
+    await truncate(path, 10);
+    const again = spill.documents();
+    let error: unknown;
+    try {
+      await again.next();
+    } catch (e) {
+      error = e;
+    }
+    expect(isLexlockError(error) && error.code).toBe('IO');
+    expect((error as Error).message).toBe(`${path}: the temporary file of token numbers ended early (6 of 24 bytes at 4); is the disk full, or did something else write to it?`);
+    await spill.remove();
+  });
+
+  it('refuses to create over an existing file, and remove deletes the file', async () => {
+    const path = tmp.path('one');
+    const spill = await NumberSpill.create(path);
+    expect((await stat(path)).isFile()).toBe(true);
+    let error: unknown;
+    try {
+      await NumberSpill.create(path);
+    } catch (e) {
+      error = e;
+    }
+    expect(isLexlockError(error) && error.code).toBe('IO');
+    expect((error as Error).message).toBe(
+      `${path}: could not write the file (EEXIST: file already exists, while creating a temporary file of token numbers); check that its folder exists, that you may write there and that the disk has room`,
+    );
+    await spill.remove();
+    expect(await readdir(tmp.dir)).toEqual([]);
+  });
+});
