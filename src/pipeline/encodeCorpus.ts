@@ -34,7 +34,7 @@ export interface EncodeCorpusOptions {
 }
 
 /** Shapes one document's ids into the sink and counts what encoding it cost. */
-function rowWriter(lexicon: Lexicon, shape: Shape | null, sink: RowSink) {
+export function rowWriter(lexicon: Lexicon, shape: Shape | null, sink: RowSink) {
   const stats: EncodeStats = { documents: 0, tokens: 0, oovTokens: 0, truncatedDocuments: 0, droppedTokens: 0, unknownLabels: 0, labelled: 0 };
   const shaped = shape === null ? null : new Int32Array(shape.length);
   const labels = new Map(lexicon.labels.map((l, i) => [l, i]));
