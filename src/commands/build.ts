@@ -1,4 +1,8 @@
+import { basename, dirname, join } from 'node:path';
 import { freeze } from '../lexicon/freeze.js';
+import type { Lexicon } from '../lexicon/Lexicon.js';
+import type { EncodeStats } from '../pipeline/encodeCorpus.js';
+import { tallyAndRecord, type RecordedTally } from '../pipeline/tallyAndRecord.js';
 import { readCorpus } from '../corpus/readCorpus.js';
 import { saveLexicon } from '../files/saveLexicon.js';
 import { assertWritable } from '../files/refuseOverwrite.js';
@@ -10,7 +14,9 @@ import type { TallyFile } from '../tally/tallyFile.js';
 import { LexlockError } from '../LexlockError.js';
 import { describeLexiconText } from './describeLexicon.js';
 import type { Io } from './Io.js';
-import { parseArgs, positionals, valueOf, wholeNumberFlag } from './parseArgs.js';
+import { assertOutputWritable, encodedSummary, isJsonl, openEncodedOutput } from './encodedOutput.js';
+import { pairs } from './format.js';
+import { parseArgs, positionals, valueOf, wholeNumberFlag, type ParsedArgs } from './parseArgs.js';
 import { corpusBytes } from './corpusBytes.js';
 import { createProgress } from './progress.js';
 import { CORPUS_FLAGS, RULE_FLAGS, SHAPE_FLAGS, corpusOptions, rulesFromFlags, shapeFromFlags, threadsFlag, badTextNotes, corpusFields } from './sharedFlags.js';
@@ -38,6 +44,9 @@ lexlock tally or merge) it freezes those counts instead; the rule and corpus fla
   --force               overwrite an existing lexicon file
   --threads N           worker threads (default: the machine's cores from 8 MiB of corpus); the lexicon is the same for any N
   --memory-limit MiB    count in bounded memory (two passes; still exact, or refused with the budget needed)
+  --encode OUT          also encode the corpus with the new lexicon, from the same reading: OUT as
+                        in lexlock encode -o (.jsonl, or a folder of .npy files, which needs --length);
+                        counts on one thread and keeps 4 bytes a token in a temporary file beside -o
   -q, --quiet           no progress on stderr
 `;
 
@@ -54,6 +63,7 @@ export async function build(argv: readonly string[], io: Io): Promise<number> {
     reserve: { kind: 'value', repeat: true },
     force: { kind: 'switch' },
     'memory-limit': { kind: 'value' },
+    encode: { kind: 'value' },
     ...CORPUS_FLAGS,
     ...RULE_FLAGS,
     ...SHAPE_FLAGS,
@@ -74,10 +84,14 @@ export async function build(argv: readonly string[], io: Io): Promise<number> {
   if (fromTally) refuseCorpusFlags(args.values);
   const rules = fromTally ? null : rulesFromFlags(args);
   const options = corpusOptions(args);
+  const encodeTo = valueOf(args, 'encode');
+  if (encodeTo !== undefined) refuseWithEncode(args, fromTally, encodeTo, shape !== null);
   await assertWritable(output, force);
+  if (encodeTo !== undefined) await assertOutputWritable(encodeTo, force);
 
   let counted: TallyFile;
   let stats = { replaced: 0, skipped: 0 };
+  let recorded: RecordedTally | null = null;
   if (fromTally) {
     counted = await loadTally(corpus);
     const r = counted.tally.rules;
@@ -91,10 +105,9 @@ export async function build(argv: readonly string[], io: Io): Promise<number> {
     let result;
     try {
       const memoryLimit = wholeNumberFlag(args, 'memory-limit', 16);
-      result =
-        memoryLimit === undefined
-          ? await tallyCorpus(reader, rules ?? resolveRules(), { threads: threadsFlag(args, await corpusBytes(corpus)) })
-          : await boundedCorpusTally(() => reader, rules ?? resolveRules(), { cap, minCount, reserved: args.values.get('reserve') ?? [], memoryLimitMiB: memoryLimit });
+      if (encodeTo !== undefined) result = recorded = await tallyAndRecord(reader, rules ?? resolveRules(), spillPathFor(output));
+      else if (memoryLimit === undefined) result = await tallyCorpus(reader, rules ?? resolveRules(), { threads: threadsFlag(args, await corpusBytes(corpus)) });
+      else result = await boundedCorpusTally(() => reader, rules ?? resolveRules(), { cap, minCount, reserved: args.values.get('reserve') ?? [], memoryLimitMiB: memoryLimit });
     } finally {
       progress.done();
     }
@@ -107,21 +120,63 @@ export async function build(argv: readonly string[], io: Io): Promise<number> {
       },
     };
   }
-  const lexicon = freeze(counted.tally, {
-    cap,
-    minCount,
-    oov,
-    reserved: args.values.get('reserve') ?? [],
-    shape,
-    snippets: counted.snippets,
-    source: corpus,
-    fields: counted.fields,
-  });
-  await saveLexicon(output, lexicon, { force });
+  let lexicon: Lexicon;
+  try {
+    lexicon = freeze(counted.tally, {
+      cap,
+      minCount,
+      oov,
+      reserved: args.values.get('reserve') ?? [],
+      shape,
+      snippets: counted.snippets,
+      source: corpus,
+      fields: counted.fields,
+    });
+    await saveLexicon(output, lexicon, { force });
+  } catch (e) {
+    await recorded?.discard();
+    throw e;
+  }
   let out = `wrote ${output}\n${describeLexiconText(lexicon)}`;
   out += badTextNotes(stats);
+  if (recorded !== null && encodeTo !== undefined) {
+    const sink = await openEncodedOutput(encodeTo, shape, { lexicon, lexiconPath: output, corpus, readStats: stats }).catch(async (e: unknown) => {
+      await recorded?.discard();
+      throw e;
+    });
+    let encoded: EncodeStats;
+    try {
+      encoded = await recorded.encode(lexicon, shape, sink);
+      await sink.finish(encoded);
+    } catch (e) {
+      await sink.abort();
+      throw e;
+    }
+    out += `wrote ${encodeTo}\n${pairs(encodedSummary(encoded, shape, lexicon, output, stats))}`;
+  }
   io.stdout.write(out);
   return 0;
+}
+
+/** Where a build that also encodes keeps its token numbers: a hidden file beside the lexicon. */
+function spillPathFor(output: string): string {
+  return join(dirname(output), `.${basename(output)}.${process.pid}.numbers.tmp`);
+}
+
+/** Refuses what `--encode` cannot go with: a tally input, bounded memory, more threads, .npy without a length. */
+function refuseWithEncode(args: ParsedArgs, fromTally: boolean, encodeTo: string, hasShape: boolean): void {
+  if (fromTally) {
+    throw new LexlockError('USAGE_BAD_VALUE', '--encode needs a corpus: a tally holds counts, not documents; build from the tally, then run lexlock encode on the corpus', { field: '--encode' });
+  }
+  if (args.values.has('memory-limit')) {
+    throw new LexlockError('USAGE_BAD_VALUE', '--encode cannot be combined with --memory-limit: a bounded build reads the corpus twice anyway; build with --memory-limit, then run lexlock encode', { field: '--encode' });
+  }
+  if ((wholeNumberFlag(args, 'threads', 1) ?? 1) > 1) {
+    throw new LexlockError('USAGE_BAD_VALUE', '--threads: a build that also encodes counts on one thread; leave --threads out, or build and then encode in two steps to use more threads', { field: '--threads' });
+  }
+  if (!isJsonl(encodeTo) && !hasShape) {
+    throw new LexlockError('USAGE_MISSING', `--encode ${encodeTo}: .npy output needs a fixed length; pass --length L (or encode to a .jsonl file for variable-length rows)`, { field: '--length' });
+  }
 }
 
 /** True for a build input that is a tally file rather than a corpus. */

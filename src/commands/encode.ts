@@ -1,16 +1,9 @@
-import { mkdir, readdir } from 'node:fs/promises';
-import { dirname, join } from 'node:path';
 import { LexlockError } from '../LexlockError.js';
 import { readCorpus } from '../corpus/readCorpus.js';
-import { writeFileAtomic } from '../files/atomicWrite.js';
 import { loadLexicon } from '../files/loadLexicon.js';
-import { assertWritable } from '../files/refuseOverwrite.js';
-import type { Shape } from '../lexicon/Shape.js';
-import { JsonlWriter } from '../output/JsonlWriter.js';
-import { NpyWriter } from '../output/NpyWriter.js';
-import { encodeCorpus, type EncodeStats, type RowSink } from '../pipeline/encodeCorpus.js';
-import { VERSION } from '../version.js';
-import { count, pairs, percent } from './format.js';
+import { encodeCorpus, type EncodeStats } from '../pipeline/encodeCorpus.js';
+import { assertOutputWritable, encodedSummary, isJsonl, openEncodedOutput } from './encodedOutput.js';
+import { pairs } from './format.js';
 import type { Io } from './Io.js';
 import { parseArgs, positionals, valueOf } from './parseArgs.js';
 import { corpusBytes } from './corpusBytes.js';
@@ -33,76 +26,6 @@ Turns every document into ids with a lexicon, in corpus order.
   --threads N           worker threads (default: the machine's cores from 8 MiB of corpus); the output is the same for any N
   -q, --quiet           no progress on stderr
 `;
-
-interface Output extends RowSink {
-  finish(stats: EncodeStats): Promise<void>;
-  abort(): Promise<void>;
-}
-
-async function jsonlOutput(path: string): Promise<Output> {
-  await mkdir(dirname(path), { recursive: true });
-  const writer = await JsonlWriter.open(path);
-  return {
-    async row(ids, kept, labelId) {
-      const line: { ids: number[]; length: number; label?: number } = { ids: Array.from(ids), length: kept };
-      if (labelId !== null) line.label = labelId;
-      await writer.writeLine(line);
-    },
-    finish: () => writer.finish(),
-    abort: () => writer.abort(),
-  };
-}
-
-async function npyOutput(folder: string, shape: Shape, manifest: (stats: EncodeStats, labelled: boolean) => object): Promise<Output> {
-  await mkdir(folder, { recursive: true });
-  const ids = await NpyWriter.open(join(folder, 'ids.npy'), shape.length);
-  const lengths = await NpyWriter.open(join(folder, 'lengths.npy'), null);
-  let labels: NpyWriter | null = null;
-  let rows = 0;
-  const one = new Int32Array(1);
-  return {
-    async row(row, kept, labelId) {
-      await ids.appendRows(row);
-      one[0] = kept;
-      await lengths.appendRows(one);
-      if (labelId !== null && labels === null) {
-        labels = await NpyWriter.open(join(folder, 'labels.npy'), null);
-        if (rows > 0) await labels.appendRows(new Int32Array(rows).fill(-1));
-      }
-      if (labels !== null) {
-        one[0] = labelId ?? -1;
-        await labels.appendRows(one);
-      }
-      rows += 1;
-    },
-    async finish(stats) {
-      await ids.finish();
-      await lengths.finish();
-      if (labels !== null) await (labels as NpyWriter).finish();
-      await writeFileAtomic(join(folder, 'manifest.json'), `${JSON.stringify(manifest(stats, labels !== null), null, 2)}\n`);
-    },
-    async abort() {
-      await ids.abort();
-      await lengths.abort();
-      if (labels !== null) await (labels as NpyWriter).abort();
-    },
-  };
-}
-
-async function assertFolderWritable(folder: string, force: boolean): Promise<void> {
-  let entries: string[];
-  try {
-    entries = await readdir(folder);
-  } catch (e) {
-    const code = (e as NodeJS.ErrnoException).code;
-    if (code === 'ENOENT') return;
-    if (code === 'ENOTDIR') await assertWritable(folder, force);
-    return;
-  }
-  if (entries.length > 0 && !force) {
-    throw new LexlockError('OUTPUT_EXISTS', `${folder} already exists and is not empty; pass --force to write into it`, { file: folder });
-  }
-}
 
 /** `lexlock encode`: corpus + lexicon -> ids (.jsonl or a folder of .npy files). */
 export async function encode(argv: readonly string[], io: Io): Promise<number> {
@@ -130,8 +53,7 @@ export async function encode(argv: readonly string[], io: Io): Promise<number> {
     );
   }
   const shape = flagShape ?? lexicon.shape;
-  const jsonl = output.toLowerCase().endsWith('.jsonl');
-  if (!jsonl && shape === null) {
+  if (!isJsonl(output) && shape === null) {
     throw new LexlockError(
       'USAGE_MISSING',
       `.npy output needs a fixed length and ${lexiconPath} has no shape; pass --length L (or write .jsonl for variable-length rows)`,
@@ -139,29 +61,11 @@ export async function encode(argv: readonly string[], io: Io): Promise<number> {
     );
   }
   const options = corpusOptions(args, lexiconFieldDefaults(corpus, lexicon));
-  if (jsonl) await assertWritable(output, force);
-  else await assertFolderWritable(output, force);
+  await assertOutputWritable(output, force);
 
   const progress = createProgress(io, 'encode', { quiet: args.switches.has('quiet'), totalBytes: await corpusBytes(corpus) });
   const reader = readCorpus(corpus, { ...options, onProgress: (p) => progress.update(p) });
-  const manifest = (stats: EncodeStats, labelled: boolean) => ({
-    format: 'lexlock.encoded',
-    lexlockVersion: VERSION,
-    lexicon: { fingerprint: lexicon.fingerprint, file: lexiconPath, size: lexicon.size, oovId: lexicon.oovId },
-    source: corpus,
-    rows: stats.documents,
-    shape,
-    files: { ids: 'ids.npy', lengths: 'lengths.npy', labels: labelled ? 'labels.npy' : null },
-    labels: labelled ? lexicon.labels : null,
-    replacedDocuments: reader.stats.replaced,
-    skippedDocuments: reader.stats.skipped,
-    unknownLabels: stats.unknownLabels,
-    tokens: stats.tokens,
-    oovTokens: stats.oovTokens,
-    truncatedDocuments: stats.truncatedDocuments,
-    droppedTokens: stats.droppedTokens,
-  });
-  const sink = jsonl ? await jsonlOutput(output) : await npyOutput(output, shape as Shape, manifest);
+  const sink = await openEncodedOutput(output, shape, { lexicon, lexiconPath, corpus, readStats: reader.stats });
   let stats: EncodeStats;
   try {
     stats = await encodeCorpus(reader, lexicon, shape, sink, { threads: threadsFlag(args, await corpusBytes(corpus)) });
@@ -172,17 +76,6 @@ export async function encode(argv: readonly string[], io: Io): Promise<number> {
   } finally {
     progress.done();
   }
-  const rows: Array<[string, string]> = [
-    ['lexicon', `${lexiconPath} (${lexicon.fingerprint})`],
-    ['rows', `${count(stats.documents)}${shape === null ? ', variable length' : ` x ${shape.length} (pad ${shape.pad}, cut ${shape.cut})`}`],
-    ['OOV', `${percent(stats.tokens === 0 ? 0 : stats.oovTokens / stats.tokens)} of ${count(stats.tokens)} tokens`],
-  ];
-  if (shape !== null) {
-    rows.push(['cut', `${count(stats.truncatedDocuments)} documents (${percent(stats.documents === 0 ? 0 : stats.truncatedDocuments / stats.documents)}), ${count(stats.droppedTokens)} tokens dropped`]);
-  }
-  if (stats.labelled > 0) rows.push(['labels', `${count(stats.labelled)} labelled documents, ${count(stats.unknownLabels)} with a label the lexicon lacks (id -1)`]);
-  if (reader.stats.replaced > 0) rows.push(['replaced', `${count(reader.stats.replaced)} documents had invalid UTF-8 replaced`]);
-  if (reader.stats.skipped > 0) rows.push(['skipped', `${count(reader.stats.skipped)} documents with invalid UTF-8 left out`]);
-  io.stdout.write(`wrote ${output}\n${pairs(rows)}`);
+  io.stdout.write(`wrote ${output}\n${pairs(encodedSummary(stats, shape, lexicon, lexiconPath, reader.stats))}`);
   return 0;
 }

@@ -1,4 +1,4 @@
-import { readFile, writeFile } from 'node:fs/promises';
+import { readdir, readFile, writeFile } from 'node:fs/promises';
 import { describe, expect, it } from 'vitest';
 import { parseLexicon } from '../../src/artifact/parseLexicon.js';
 import { cli, freshFolderEachTest } from '../helpers/cli.js';
@@ -108,5 +108,45 @@ describe('lexlock build --memory-limit', () => {
     const r = await cli('build', tmp.path('wide.txt'), '-o', tmp.path('lex.json'), '--cap', '50000', '--memory-limit', '16');
     expect(r.code).toBe(1);
     expect(r.stderr).toMatch(/^lexlock build: the memory limit holds 41,943 counters, too few to prove the top 50,000 tokens exact on this corpus: the last of them occurs once, but a token not followed may have occurred up to (once|[\d,]+ times); about [\d,]+ counters would do: try --memory-limit \d+\n$/);
+  });
+});
+
+describe('lexlock build --encode', () => {
+  const lexiconFileOf = (manifest: string) => manifest.replace(/"file": "[^"]*"/, '"file": "…"');
+
+  it.each([
+    ['a folder of .npy files', 'out', ['--length', '4', '--pad', 'pre']],
+    ['a .jsonl file', 'out.jsonl', []],
+  ])('writes the same lexicon and the same %s as build then encode, and leaves no temporary file', async (_what, out, shapeFlags) => {
+    await writeFile(tmp.path('m.csv'), CSV);
+    const flags = ['--label', 'topic', '--cap', '3', ...shapeFlags];
+    const one = await cli('build', tmp.path('m.csv'), '-o', tmp.path('one.json'), ...flags, '--encode', tmp.path(`one-${out}`));
+    expect(one.stderr).toBe('');
+    expect(one.code).toBe(0);
+    expect((await cli('build', tmp.path('m.csv'), '-o', tmp.path('two.json'), ...flags)).code).toBe(0);
+    expect((await cli('encode', tmp.path('m.csv'), '--lexicon', tmp.path('two.json'), '-o', tmp.path(`two-${out}`))).code).toBe(0);
+    const a = parseLexicon(await readFile(tmp.path('one.json'), 'utf8'));
+    expect(a.fingerprint).toBe(parseLexicon(await readFile(tmp.path('two.json'), 'utf8')).fingerprint);
+    const files = out.endsWith('.jsonl') ? [''] : ['/ids.npy', '/lengths.npy', '/labels.npy'];
+    for (const f of files) expect((await readFile(tmp.path(`one-${out}${f}`))).equals(await readFile(tmp.path(`two-${out}${f}`)))).toBe(true);
+    if (!out.endsWith('.jsonl')) {
+      expect(lexiconFileOf(await readFile(tmp.path('one-out/manifest.json'), 'utf8'))).toBe(lexiconFileOf(await readFile(tmp.path('two-out/manifest.json'), 'utf8')));
+    }
+    expect(one.stdout).toContain(`wrote ${tmp.path(`one-${out}`)}\nlexicon  ${tmp.path('one.json')} (${a.fingerprint})\n`);
+    expect((await readdir(tmp.dir)).filter((f) => f.endsWith('.tmp'))).toEqual([]);
+  });
+
+  it.each([
+    ['a tally input', ['--encode', 'x.jsonl'], 'part.tally', '--encode needs a corpus: a tally holds counts, not documents; build from the tally, then run lexlock encode on the corpus'],
+    ['--memory-limit', ['--encode', 'x.jsonl', '--memory-limit', '64'], 'm.csv', '--encode cannot be combined with --memory-limit: a bounded build reads the corpus twice anyway; build with --memory-limit, then run lexlock encode'],
+    ['--threads 2', ['--encode', 'x.jsonl', '--threads', '2'], 'm.csv', '--threads: a build that also encodes counts on one thread; leave --threads out, or build and then encode in two steps to use more threads'],
+    ['.npy output without a length', ['--encode', 'out'], 'm.csv', '--encode out: .npy output needs a fixed length; pass --length L (or encode to a .jsonl file for variable-length rows)'],
+  ])('refuses %s, writing nothing', async (_what, flags, input, message) => {
+    await writeFile(tmp.path('m.csv'), CSV);
+    expect((await cli('tally', tmp.path('m.csv'), '-o', tmp.path('part.tally'))).code).toBe(0);
+    const r = await cli('build', tmp.path(input), '-o', tmp.path('lex.json'), ...flags);
+    expect(r.code).toBe(2);
+    expect(r.stderr).toBe(`lexlock build: ${message}\n`);
+    expect((await readdir(tmp.dir)).sort()).toEqual(['m.csv', 'part.tally']);
   });
 });
