@@ -5,6 +5,8 @@ export type PhaseName =
   | 'build'
   /** `lexlock build` as users run it: the CLI, default thread count. */
   | 'build-cli'
+  /** `lexlock build --encode`: fit and encode from one reading, through the CLI. */
+  | 'build-encode-cli'
   | 'baseline-build'
   | 'encode-noop'
   | 'encode-npy'

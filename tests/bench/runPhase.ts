@@ -133,7 +133,7 @@ async function measureLatency(spec: PhaseSpec): Promise<Measured> {
 }
 
 /** The phases run in this process (the command-line phases run dist/bin.js: see spawnPhase). */
-const PHASES: Record<Exclude<PhaseSpec['phase'], 'build-cli' | 'encode-npy'>, (spec: PhaseSpec) => Promise<Measured>> = {
+const PHASES: Record<Exclude<PhaseSpec['phase'], 'build-cli' | 'build-encode-cli' | 'encode-npy'>, (spec: PhaseSpec) => Promise<Measured>> = {
   tokenize: (spec) => {
     const rules = resolveRules();
     return measureTokenize(spec, (text) => tokenize(text, rules));
@@ -150,7 +150,7 @@ const PHASES: Record<Exclude<PhaseSpec['phase'], 'build-cli' | 'encode-npy'>, (s
 
 /** Runs one phase in this process and reports its time, figures and this process's peak memory. */
 export async function runPhase(spec: PhaseSpec): Promise<PhaseResult> {
-  if (spec.phase === 'build-cli' || spec.phase === 'encode-npy') throw new Error(`${spec.phase} runs the built executable: use spawnPhase`);
+  if (spec.phase === 'build-cli' || spec.phase === 'build-encode-cli' || spec.phase === 'encode-npy') throw new Error(`${spec.phase} runs the built executable: use spawnPhase`);
   const measured = await PHASES[spec.phase](spec);
   return { phase: spec.phase, ...measured, maxRssKiB: process.resourceUsage().maxRSS };
 }

@@ -12,6 +12,10 @@ function cliArguments(spec: PhaseSpec): string[] | null {
     const args = ['build', spec.corpus, '-o', `${spec.lexicon}.cli.json`, '--cap', String(spec.cap), '--length', String(spec.length), '--quiet', '--force'];
     return spec.label === undefined ? args : [...args, '--label', spec.label];
   }
+  if (spec.phase === 'build-encode-cli') {
+    const args = ['build', spec.corpus, '-o', `${spec.lexicon}.one-pass.json`, '--cap', String(spec.cap), '--length', String(spec.length), '--encode', `${spec.out}-one-pass`, '--quiet', '--force'];
+    return spec.label === undefined ? args : [...args, '--label', spec.label];
+  }
   if (spec.phase === 'encode-npy') return ['encode', spec.corpus, '--lexicon', spec.lexicon, '-o', spec.out, '--quiet', '--force'];
   return null;
 }
