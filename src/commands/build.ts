@@ -46,7 +46,7 @@ lexlock tally or merge) it freezes those counts instead; the rule and corpus fla
   --memory-limit MiB    count in bounded memory (two passes; still exact, or refused with the budget needed)
   --encode OUT          also encode the corpus with the new lexicon, from the same reading: OUT as
                         in lexlock encode -o (.jsonl, or a folder of .npy files, which needs --length);
-                        counts on one thread and keeps 4 bytes a token in a temporary file beside -o
+                        keeps 4 bytes a token in a temporary file beside -o until then
   -q, --quiet           no progress on stderr
 `;
 
@@ -105,7 +105,7 @@ export async function build(argv: readonly string[], io: Io): Promise<number> {
     let result;
     try {
       const memoryLimit = wholeNumberFlag(args, 'memory-limit', 16);
-      if (encodeTo !== undefined) result = recorded = await tallyAndRecord(reader, rules ?? resolveRules(), spillPathFor(output));
+      if (encodeTo !== undefined) result = recorded = await tallyAndRecord(reader, rules ?? resolveRules(), spillPathFor(output), { threads: threadsFlag(args, await corpusBytes(corpus)) });
       else if (memoryLimit === undefined) result = await tallyCorpus(reader, rules ?? resolveRules(), { threads: threadsFlag(args, await corpusBytes(corpus)) });
       else result = await boundedCorpusTally(() => reader, rules ?? resolveRules(), { cap, minCount, reserved: args.values.get('reserve') ?? [], memoryLimitMiB: memoryLimit });
     } finally {
@@ -163,16 +163,13 @@ function spillPathFor(output: string): string {
   return join(dirname(output), `.${basename(output)}.${process.pid}.numbers.tmp`);
 }
 
-/** Refuses what `--encode` cannot go with: a tally input, bounded memory, more threads, .npy without a length. */
+/** Refuses what `--encode` cannot go with: a tally input, bounded memory, .npy without a length. */
 function refuseWithEncode(args: ParsedArgs, fromTally: boolean, encodeTo: string, hasShape: boolean): void {
   if (fromTally) {
     throw new LexlockError('USAGE_BAD_VALUE', '--encode needs a corpus: a tally holds counts, not documents; build from the tally, then run lexlock encode on the corpus', { field: '--encode' });
   }
   if (args.values.has('memory-limit')) {
     throw new LexlockError('USAGE_BAD_VALUE', '--encode cannot be combined with --memory-limit: a bounded build reads the corpus twice anyway; build with --memory-limit, then run lexlock encode', { field: '--encode' });
-  }
-  if ((wholeNumberFlag(args, 'threads', 1) ?? 1) > 1) {
-    throw new LexlockError('USAGE_BAD_VALUE', '--threads: a build that also encodes counts on one thread; leave --threads out, or build and then encode in two steps to use more threads', { field: '--threads' });
   }
   if (!isJsonl(encodeTo) && !hasShape) {
     throw new LexlockError('USAGE_MISSING', `--encode ${encodeTo}: .npy output needs a fixed length; pass --length L (or encode to a .jsonl file for variable-length rows)`, { field: '--length' });

@@ -4,10 +4,13 @@ import { ioError } from './ioError.js';
 
 /** Numbers a block holds before it is written (4 MiB). */
 const BLOCK_INTS = 1 << 20;
+/** Numbers before a document's own: label, group, length. */
+const HEAD = 3;
 
-/** One document read back from a spill: its label's index (-1: none) and its token numbers. */
+/** One document read back from a spill: its label's index (-1: none), its numbers' group and its token numbers. */
 export interface SpilledDocument {
   label: number;
+  group: number;
   numbers: Int32Array;
 }
 
@@ -15,7 +18,8 @@ export interface SpilledDocument {
  * A temporary file of documents as token numbers, written once in corpus order and read back once in
  * the same order: a build that also encodes keeps its corpus here instead of reading and tokenizing it
  * again. Blocks of int32 in this machine's byte order (the file never leaves it): a block is its
- * length in numbers, then its documents, each `label, length, numbers...`.
+ * length in numbers, then its documents, each `label, group, length, numbers...` (the group says
+ * which numbering the numbers are in, for a caller that has more than one).
  */
 export class NumberSpill {
   readonly path: string;
@@ -38,17 +42,18 @@ export class NumberSpill {
     }
   }
 
-  /** Appends one document: its label's index (-1 for none) and the first `length` of `numbers`. */
-  async add(label: number, numbers: Int32Array, length: number): Promise<void> {
-    if (this.used + 2 + length > this.block.length) {
+  /** Appends one document: its label's index (-1 for none), its group, and the first `length` of `numbers`. */
+  async add(label: number, group: number, numbers: Int32Array, length: number): Promise<void> {
+    if (this.used + HEAD + length > this.block.length) {
       await this.writeBlock();
-      if (2 + length > this.block.length) this.block = new Int32Array(2 + length);
+      if (HEAD + length > this.block.length) this.block = new Int32Array(HEAD + length);
     }
     const block = this.block;
     block[this.used] = label;
-    block[this.used + 1] = length;
-    block.set(numbers.subarray(0, length), this.used + 2);
-    this.used += 2 + length;
+    block[this.used + 1] = group;
+    block[this.used + 2] = length;
+    block.set(numbers.subarray(0, length), this.used + HEAD);
+    this.used += HEAD + length;
   }
 
   /** The documents in the order added (everything added is written first). */
@@ -62,10 +67,9 @@ export class NumberSpill {
       await this.readInto(block, position + 4);
       position += 4 + block.byteLength;
       for (let at = 0; at < block.length; ) {
-        const label = block[at] as number;
-        const length = block[at + 1] as number;
-        yield { label, numbers: block.subarray(at + 2, at + 2 + length) };
-        at += 2 + length;
+        const length = block[at + 2] as number;
+        yield { label: block[at] as number, group: block[at + 1] as number, numbers: block.subarray(at + HEAD, at + HEAD + length) };
+        at += HEAD + length;
       }
     }
   }

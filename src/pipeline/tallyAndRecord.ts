@@ -1,11 +1,15 @@
+import { LexlockError } from '../LexlockError.js';
 import { NumberSpill } from '../files/NumberSpill.js';
 import type { Lexicon } from '../lexicon/Lexicon.js';
 import type { Shape } from '../lexicon/Shape.js';
 import { tokenize } from '../rules/tokenize.js';
 import type { TextRules } from '../rules/TextRules.js';
 import { Tally, type LabelledText } from '../tally/Tally.js';
+import { IN_FLIGHT_PER_THREAD, batchesOf, inOrder } from '../workers/batches.js';
+import type { WorkerReply } from '../workers/messages.js';
+import { WorkerPool } from '../workers/WorkerPool.js';
 import { rowWriter, type EncodeStats, type RowSink } from './encodeCorpus.js';
-import { snippetKeeper, type CorpusTally } from './tallyCorpus.js';
+import { snippetKeeper, type CorpusTally, type TallyCorpusOptions } from './tallyCorpus.js';
 
 /** A tally that also kept every document as token numbers, to encode them once a lexicon is made. */
 export interface RecordedTally extends CorpusTally {
@@ -18,40 +22,88 @@ export interface RecordedTally extends CorpusTally {
   discard(): Promise<void>;
 }
 
+/** Label strings as small numbers, in the order first seen (-1: no label). */
+class LabelNumbers {
+  readonly labels: string[] = [];
+  private readonly numbers = new Map<string, number>();
+
+  of(label: string | undefined): number {
+    if (label === undefined) return -1;
+    let n = this.numbers.get(label);
+    if (n === undefined) {
+      n = this.labels.length;
+      this.labels.push(label);
+      this.numbers.set(label, n);
+    }
+    return n;
+  }
+}
+
 /**
- * Tallies a stream of documents as `tallyCorpus` does (on this thread) and writes each document's
- * token numbers (see `Tally.numberOf`) to a spill file at `spillPath`, 4 bytes a token, so the corpus
- * can be encoded after freezing without a second pass. The caller removes the file with `discard`
- * if it does not encode.
+ * Tallies a stream of documents as `tallyCorpus` does and writes each document's token numbers to a
+ * spill file at `spillPath`, 4 bytes a token, so the corpus can be encoded after freezing without a
+ * second pass. Numbers are those of the final tally (`Tally.numberOf`) for documents counted on this
+ * thread; a worker's are those of the counts it keeps, mapped once it sends them. The caller removes
+ * the file with `discard` if it does not encode.
  */
 export async function tallyAndRecord(
   documents: AsyncIterable<string | LabelledText> | Iterable<string | LabelledText>,
   rules: TextRules,
   spillPath: string,
+  options: TallyCorpusOptions = {},
 ): Promise<RecordedTally> {
   const tally = new Tally(rules);
   const keeper = snippetKeeper();
-  const labels: string[] = [];
-  const labelIndex = new Map<string, number>();
+  const labels = new LabelNumbers();
+  // Group -> (a worker's token number -> the final tally's number); group 0 is the final tally's own.
+  const groups = new Map<number, Int32Array>();
   const spill = await NumberSpill.create(spillPath);
-  let numbers = new Int32Array(1024);
+  const threads = options.threads ?? 1;
   try {
-    for await (const doc of documents) {
-      const text = typeof doc === 'string' ? doc : doc.text;
-      const label = typeof doc === 'string' ? undefined : doc.label;
-      const tokens = tokenize(text, rules);
-      if (tokens.length > numbers.length) numbers = new Int32Array(Math.max(tokens.length, numbers.length * 2));
-      tally.addNumbered(tokens, label, numbers);
-      keeper.see(text);
-      let l = -1;
-      if (label !== undefined) {
-        l = labelIndex.get(label) ?? labels.length;
-        if (l === labels.length) {
-          labels.push(label);
-          labelIndex.set(label, l);
-        }
+    if (threads <= 1) {
+      let numbers = new Int32Array(1024);
+      for await (const doc of documents) {
+        const text = typeof doc === 'string' ? doc : doc.text;
+        const label = typeof doc === 'string' ? undefined : doc.label;
+        const tokens = tokenize(text, rules);
+        if (tokens.length > numbers.length) numbers = new Int32Array(Math.max(tokens.length, numbers.length * 2));
+        tally.addNumbered(tokens, label, numbers);
+        keeper.see(text);
+        await spill.add(labels.of(label), 0, numbers, tokens.length);
       }
-      await spill.add(l, numbers, tokens.length);
+    } else {
+      const pool = WorkerPool.start({ kind: 'tally', rules, numbered: true }, threads, { tally });
+      const merge = (reply: WorkerReply) => {
+        if (!('tally' in reply)) return;
+        const { types } = reply.tally;
+        tally.mergeCounts(reply.tally);
+        const map = new Int32Array(types.length);
+        types.forEach((token, i) => {
+          map[i] = tally.numberOf(token);
+        });
+        groups.set(reply.group, map);
+      };
+      try {
+        await inOrder(
+          batchesOf(documents, keeper.see),
+          (b) => pool.submit(b),
+          async (batch, reply) => {
+            merge(reply);
+            if (!('numbered' in reply) || reply.numbered === undefined) return;
+            const { numbers, lengths, group } = reply.numbered;
+            let at = 0;
+            for (let i = 0; i < lengths.length; i++) {
+              const n = lengths[i] as number;
+              await spill.add(labels.of(batch.labels[i] ?? undefined), group, numbers.subarray(at, at + n), n);
+              at += n;
+            }
+          },
+          threads * IN_FLIGHT_PER_THREAD,
+        );
+        for (const reply of await pool.flush()) merge(reply);
+      } finally {
+        await pool.close();
+      }
     }
   } catch (e) {
     await spill.remove();
@@ -62,15 +114,21 @@ export async function tallyAndRecord(
     snippets: keeper.snippets,
     async encode(lexicon, shape, sink) {
       try {
-        // Token number -> lexicon id, in one lookup per distinct token.
+        // Final tally number -> lexicon id, in one lookup per distinct token; then per group.
         const idOf = lexicon.idsOf([...tally.tokenList()]);
+        const idsOfGroup = new Map<number, Int32Array>([[0, idOf]]);
+        for (const [group, map] of groups) idsOfGroup.set(group, map.map((n) => idOf[n] as number));
         const { stats, write } = rowWriter(lexicon, shape, sink);
         let ids = new Int32Array(1024);
-        for await (const { label, numbers: n } of spill.documents()) {
-          if (n.length > ids.length) ids = new Int32Array(Math.max(n.length, ids.length * 2));
-          const row = ids.subarray(0, n.length);
-          for (let i = 0; i < n.length; i++) row[i] = idOf[n[i] as number] as number;
-          await write(row, label === -1 ? undefined : labels[label]);
+        for await (const { label, group, numbers } of spill.documents()) {
+          const table = idsOfGroup.get(group);
+          if (table === undefined) {
+            throw new LexlockError('IO', `${spill.path}: a document's token numbers are of group ${group}, which no counts came with; something else changed the temporary file, or this is a lexlock bug`, { file: spill.path });
+          }
+          if (numbers.length > ids.length) ids = new Int32Array(Math.max(numbers.length, ids.length * 2));
+          const row = ids.subarray(0, numbers.length);
+          for (let i = 0; i < numbers.length; i++) row[i] = table[numbers[i] as number] as number;
+          await write(row, label === -1 ? undefined : labels.labels[label]);
         }
         return stats;
       } finally {

@@ -56,8 +56,8 @@ export class WorkerPool {
     const slots: Slot[] = [];
     for (let i = 0; i < Math.max(1, threads - 1); i++) {
       const worker = fromSources
-        ? new Worker(`import('tsx/esm/api').then((m) => m.tsImport(${JSON.stringify(workerUrl.href)}, ${JSON.stringify(import.meta.url)}))`, { eval: true, workerData: setup })
-        : new Worker(workerUrl, { workerData: setup });
+        ? new Worker(`import('tsx/esm/api').then((m) => m.tsImport(${JSON.stringify(workerUrl.href)}, ${JSON.stringify(import.meta.url)}))`, { eval: true, workerData: { setup, index: i + 1 } })
+        : new Worker(workerUrl, { workerData: { setup, index: i + 1 } });
       const slot: Slot = { worker, busy: 0, waiting: new Map() };
       worker.on('message', (reply: WorkerReply) => {
         const w = slot.waiting.get(reply.id);

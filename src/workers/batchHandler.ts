@@ -1,8 +1,9 @@
 import { AuditCounts } from '../audit/AuditCounts.js';
 import { isLexlockError } from '../LexlockError.js';
 import { Lexicon } from '../lexicon/Lexicon.js';
+import { tokenize } from '../rules/tokenize.js';
 import { Tally } from '../tally/Tally.js';
-import type { Batch, WorkerReply, WorkerSetup } from './messages.js';
+import type { Batch, NumberedBatch, WorkerReply, WorkerSetup } from './messages.js';
 
 /**
  * Distinct tokens a tally or audit job keeps across batches before it sends them on: merging a
@@ -10,6 +11,9 @@ import type { Batch, WorkerReply, WorkerSetup } from './messages.js';
  * again for every batch, and the bound keeps a thread's memory from growing with the corpus.
  */
 export const KEPT_TYPES = 100_000;
+
+/** Groups of token numbers a thread may send (see {@link NumberedBatch}): thread `index` uses `index * GROUPS_PER_THREAD + 1` on. */
+const GROUPS_PER_THREAD = 1 << 20;
 
 /** Where the calling thread's own batches are counted: straight into the job's final counts. */
 export interface LocalTargets {
@@ -31,16 +35,20 @@ export interface BatchHandler {
  * Tally and audit counts are kept across batches (see {@link KEPT_TYPES}); given `targets`, the
  * calling thread counts into the job's final tally or audit counts instead, and never sends them.
  * The encoding of a setup was checked where it was loaded, so it is not checked again (and a worker
- * never loads the schema code).
+ * never loads the schema code). `index` tells threads' groups of token numbers apart (0: the calling thread).
  */
-export function batchHandler(setup: WorkerSetup, targets: LocalTargets = {}): BatchHandler {
+export function batchHandler(setup: WorkerSetup, targets: LocalTargets = {}, index = 0): BatchHandler {
   const lexicon = setup.kind === 'tally' ? null : (targets.lexicon ?? new Lexicon(setup.encoding, null, [], setup.fingerprint));
   let tally: Tally | null = null;
   let audit: AuditCounts | null = null;
+  // Each set of counts this thread sends is a group; token numbers name the group they belong to.
+  let sent = 0;
+  const group = () => (tally !== null && tally === targets.tally ? 0 : index * GROUPS_PER_THREAD + sent + 1);
   const take = (id: number): WorkerReply => {
     if (tally !== null && tally !== targets.tally) {
-      const reply: WorkerReply = { id, tally: tally.toCounts() };
+      const reply: WorkerReply = { id, tally: tally.toCounts(), group: group() };
       tally = null;
+      sent += 1;
       return reply;
     }
     if (audit !== null && audit !== targets.audit) {
@@ -53,8 +61,19 @@ export function batchHandler(setup: WorkerSetup, targets: LocalTargets = {}): Ba
   const handle = (batch: Batch): WorkerReply => {
     if (setup.kind === 'tally') {
       const t = (tally ??= targets.tally ?? new Tally(setup.rules));
-      batch.texts.forEach((text, i) => t.add({ text, label: batch.labels[i] ?? undefined }));
-      return t !== targets.tally && t.types >= KEPT_TYPES ? take(batch.id) : { id: batch.id, kept: true };
+      let numbered: NumberedBatch | undefined;
+      if (setup.numbered === true) {
+        const rows = batch.texts.map((text, i) => {
+          const tokens = tokenize(text, setup.rules);
+          const numbers = new Int32Array(tokens.length);
+          t.addNumbered(tokens, batch.labels[i] ?? undefined, numbers);
+          return numbers;
+        });
+        const { ids, lengths } = joinRows(rows);
+        numbered = { numbers: ids, lengths, group: group() };
+      } else batch.texts.forEach((text, i) => t.add({ text, label: batch.labels[i] ?? undefined }));
+      const reply = t !== targets.tally && t.types >= KEPT_TYPES ? take(batch.id) : { id: batch.id, kept: true as const };
+      return numbered === undefined ? reply : { ...reply, numbered };
     }
     const lex = lexicon as Lexicon;
     if (setup.kind === 'audit') {
@@ -62,23 +81,27 @@ export function batchHandler(setup: WorkerSetup, targets: LocalTargets = {}): Ba
       batch.texts.forEach((text, i) => a.add(text, batch.labels[i] ?? undefined));
       return a !== targets.audit && a.tally.types >= KEPT_TYPES ? take(batch.id) : { id: batch.id, kept: true };
     }
-    const rows = batch.texts.map((text) => lex.idsOf(lex.tokenize(text)));
-    let total = 0;
-    for (const r of rows) total += r.length;
-    const ids = new Int32Array(total);
-    const lengths = new Int32Array(rows.length);
-    let at = 0;
-    rows.forEach((r, i) => {
-      ids.set(r, at);
-      at += r.length;
-      lengths[i] = r.length;
-    });
-    return { id: batch.id, encoded: { ids, lengths } };
+    return { id: batch.id, encoded: joinRows(batch.texts.map((text) => lex.idsOf(lex.tokenize(text)))) };
   };
   return {
     handle: (batch) => safely(batch.id, () => handle(batch)),
     flush: (id) => safely(id, () => take(id)),
   };
+}
+
+/** Rows one after another in one array (with their own ArrayBuffer, to hand over), and each row's length. */
+function joinRows(rows: readonly Int32Array[]): { ids: Int32Array; lengths: Int32Array } {
+  let total = 0;
+  for (const r of rows) total += r.length;
+  const ids = new Int32Array(total);
+  const lengths = new Int32Array(rows.length);
+  let at = 0;
+  rows.forEach((r, i) => {
+    ids.set(r, at);
+    at += r.length;
+    lengths[i] = r.length;
+  });
+  return { ids, lengths };
 }
 
 /** Runs `f`, answering an error reply for anything it throws. */

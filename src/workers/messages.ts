@@ -8,7 +8,8 @@ import type { TextRules } from '../rules/TextRules.js';
  * thread has already loaded and checked, with its fingerprint, to encode or audit with.
  */
 export type WorkerSetup =
-  | { kind: 'tally'; rules: TextRules }
+  /** `numbered`: also answer each batch's token numbers (see {@link NumberedBatch}). */
+  | { kind: 'tally'; rules: TextRules; numbered?: boolean }
   | { kind: 'encode'; encoding: Encoding; fingerprint: string }
   | { kind: 'audit'; encoding: Encoding; fingerprint: string; length: number | null };
 
@@ -25,6 +26,17 @@ export interface Flush {
   flush: true;
 }
 
+/**
+ * A batch's documents as token numbers, one after another, and each one's length. The numbers are
+ * those of the tally the thread keeps (`Tally.numberOf`), which its counts reply for the same `group`
+ * carries; group 0 numbers are those of the job's final tally itself (the calling thread's batches).
+ */
+export interface NumberedBatch {
+  numbers: Int32Array;
+  lengths: Int32Array;
+  group: number;
+}
+
 /** A worker's ids for one batch: every document's ids one after another, and each one's length. */
 export interface EncodedBatch {
   ids: Int32Array;
@@ -36,8 +48,8 @@ export interface EncodedBatch {
  * answer `kept` until a flush, or until what they keep grows past a bound; then they send it.
  */
 export type WorkerReply =
-  | { id: number; kept: true }
-  | { id: number; tally: TallyCounts }
+  | { id: number; kept: true; numbered?: NumberedBatch }
+  | { id: number; tally: TallyCounts; group: number; numbered?: NumberedBatch }
   | { id: number; encoded: EncodedBatch }
   | { id: number; audit: AuditParts }
   | { id: number; error: { message: string; code?: string } };

@@ -117,6 +117,7 @@ describe('lexlock build --encode', () => {
   it.each([
     ['a folder of .npy files', 'out', ['--length', '4', '--pad', 'pre']],
     ['a .jsonl file', 'out.jsonl', []],
+    ['a folder of .npy files, on 2 threads', 'out', ['--length', '4', '--threads', '2']],
   ])('writes the same lexicon and the same %s as build then encode, and leaves no temporary file', async (_what, out, shapeFlags) => {
     await writeFile(tmp.path('m.csv'), CSV);
     const flags = ['--label', 'topic', '--cap', '3', ...shapeFlags];
@@ -139,7 +140,6 @@ describe('lexlock build --encode', () => {
   it.each([
     ['a tally input', ['--encode', 'x.jsonl'], 'part.tally', '--encode needs a corpus: a tally holds counts, not documents; build from the tally, then run lexlock encode on the corpus'],
     ['--memory-limit', ['--encode', 'x.jsonl', '--memory-limit', '64'], 'm.csv', '--encode cannot be combined with --memory-limit: a bounded build reads the corpus twice anyway; build with --memory-limit, then run lexlock encode'],
-    ['--threads 2', ['--encode', 'x.jsonl', '--threads', '2'], 'm.csv', '--threads: a build that also encodes counts on one thread; leave --threads out, or build and then encode in two steps to use more threads'],
     ['.npy output without a length', ['--encode', 'out'], 'm.csv', '--encode out: .npy output needs a fixed length; pass --length L (or encode to a .jsonl file for variable-length rows)'],
   ])('refuses %s, writing nothing', async (_what, flags, input, message) => {
     await writeFile(tmp.path('m.csv'), CSV);

@@ -7,9 +7,9 @@ import { freshFolderEachTest } from '../helpers/cli.js';
 
 const tmp = freshFolderEachTest();
 
-async function readBack(spill: NumberSpill): Promise<Array<{ label: number; numbers: number[] }>> {
-  const out: Array<{ label: number; numbers: number[] }> = [];
-  for await (const d of spill.documents()) out.push({ label: d.label, numbers: Array.from(d.numbers) });
+async function readBack(spill: NumberSpill): Promise<Array<{ label: number; group: number; numbers: number[] }>> {
+  const out: Array<{ label: number; group: number; numbers: number[] }> = [];
+  for await (const d of spill.documents()) out.push({ label: d.label, group: d.group, numbers: Array.from(d.numbers) });
   return out;
 }
 
@@ -18,13 +18,13 @@ describe('NumberSpill', () => {
   it('gives back every document, label and numbers, in the order added (fast-check)', async () => {
     let run = 0;
     await fc.assert(
-      fc.asyncProperty(fc.array(fc.record({ label: fc.integer({ min: -1, max: 9 }), numbers: fc.array(fc.integer({ min: 0, max: 2 ** 31 - 1 }), { maxLength: 40 }) }), { maxLength: 60 }), async (docs) => {
+      fc.asyncProperty(fc.array(fc.record({ label: fc.integer({ min: -1, max: 9 }), group: fc.integer({ min: 0, max: 2 ** 31 - 1 }), numbers: fc.array(fc.integer({ min: 0, max: 2 ** 31 - 1 }), { maxLength: 40 }) }), { maxLength: 60 }), async (docs) => {
         const spill = await NumberSpill.create(tmp.path(`spill-${run++}`));
         try {
           for (const d of docs) {
             // The caller's array may be longer than the document and is reused: only `length` counts.
             const scratch = Int32Array.from([...d.numbers, 7, 7, 7]);
-            await spill.add(d.label, scratch, d.numbers.length);
+            await spill.add(d.label, d.group, scratch, d.numbers.length);
             scratch.fill(-5);
           }
           expect(await readBack(spill)).toEqual(docs);
@@ -39,13 +39,13 @@ describe('NumberSpill', () => {
   it('keeps a document longer than a block whole, between shorter ones', async () => {
     const spill = await NumberSpill.create(tmp.path('big'));
     const big = Int32Array.from({ length: (1 << 20) + 3 }, (_, i) => i);
-    await spill.add(0, Int32Array.of(1, 2), 2);
-    await spill.add(4, big, big.length);
-    await spill.add(-1, Int32Array.of(), 0);
-    await spill.add(2, Int32Array.of(9), 1);
+    await spill.add(0, 0, Int32Array.of(1, 2), 2);
+    await spill.add(4, 1, big, big.length);
+    await spill.add(-1, 0, Int32Array.of(), 0);
+    await spill.add(2, 7, Int32Array.of(9), 1);
     const docs: SpilledDocument[] = [];
-    for await (const d of spill.documents()) docs.push({ label: d.label, numbers: d.numbers.slice() });
-    expect(docs.map((d) => [d.label, d.numbers.length])).toEqual([[0, 2], [4, big.length], [-1, 0], [2, 1]]);
+    for await (const d of spill.documents()) docs.push({ label: d.label, group: d.group, numbers: d.numbers.slice() });
+    expect(docs.map((d) => [d.label, d.group, d.numbers.length])).toEqual([[0, 0, 2], [4, 1, big.length], [-1, 0, 0], [2, 7, 1]]);
     const second = docs[1]?.numbers ?? new Int32Array();
     expect(Buffer.from(second.buffer, second.byteOffset, second.byteLength).equals(Buffer.from(big.buffer))).toBe(true);
     expect(Array.from(docs[3]?.numbers ?? [])).toEqual([9]);
@@ -55,7 +55,7 @@ describe('NumberSpill', () => {
   it('says so when the file was cut short behind its back', async () => {
     const path = tmp.path('cut');
     const spill = await NumberSpill.create(path);
-    await spill.add(1, Int32Array.of(1, 2, 3, 4), 4);
+    await spill.add(1, 0, Int32Array.of(1, 2, 3, 4), 4);
     const reading = spill.documents();
     await reading.next().catch(() => undefined); // writes the block, then reads it back
     await truncate(path, 10);
@@ -67,7 +67,7 @@ describe('NumberSpill', () => {
       error = e;
     }
     expect(isLexlockError(error) && error.code).toBe('IO');
-    expect((error as Error).message).toBe(`${path}: the temporary file of token numbers ended early (6 of 24 bytes at 4); is the disk full, or did something else write to it?`);
+    expect((error as Error).message).toBe(`${path}: the temporary file of token numbers ended early (6 of 28 bytes at 4); is the disk full, or did something else write to it?`);
     await spill.remove();
   });
 

@@ -21,10 +21,12 @@ function collecting(): { rows: number[][]; sink: RowSink } {
 // Common practice: encoding from kept token numbers must give what encoding the corpus again gives.
 describe('tallyAndRecord', () => {
   it.each([
-    ['fixed length, pre padding', { length: 24, pad: 'pre', cut: 'pre' } as const],
-    ['variable length', null],
-  ])('tallies as tallyCorpus does and encodes the same rows as encodeCorpus (%s), then removes its spill', async (_name, shape) => {
-    const recorded = await tallyAndRecord(readCorpus(demo, { label: 'topic' }), rules, tmp.path('spill'));
+    ['fixed length, pre padding, 1 thread', { length: 24, pad: 'pre', cut: 'pre' } as const, 1],
+    ['variable length, 1 thread', null, 1],
+    ['fixed length, 2 threads', { length: 24, pad: 'post', cut: 'post' } as const, 2],
+    ['variable length, 3 threads', null, 3],
+  ])('tallies as tallyCorpus does and encodes the same rows as encodeCorpus (%s), then removes its spill', async (_name, shape, threads) => {
+    const recorded = await tallyAndRecord(readCorpus(demo, { label: 'topic' }), rules, tmp.path('spill'), { threads });
     const plain = await tallyCorpus(readCorpus(demo, { label: 'topic' }), rules);
     const lexicon = freeze(recorded.tally, { cap: 700, snippets: recorded.snippets, shape, now: new Date(0) });
     expect(serializeLexicon(lexicon)).toBe(serializeLexicon(freeze(plain.tally, { cap: 700, snippets: plain.snippets, shape, now: new Date(0) })));
@@ -38,6 +40,27 @@ describe('tallyAndRecord', () => {
     expect(statsFromSpill).toEqual(stats);
     expect(stats.oovTokens).toBeGreaterThan(0);
     expect(await readdir(tmp.dir)).toEqual([]);
+  });
+
+  it('maps the numbers of worker threads that send their counts several times (more distinct tokens than a thread keeps)', async () => {
+    const { KEPT_TYPES } = await import('../../src/workers/batchHandler.js');
+    // Letters only, so each word is one token: a, b, ..., z, ba, bb, ...
+    const word = (i: number): string => (i < 26 ? '' : word(Math.floor(i / 26))) + String.fromCharCode(97 + (i % 26));
+    // 3,000 documents of 100 words: 20 common to all, 80 of their own; every third one labelled.
+    const docs = Array.from({ length: 3000 }, (_, d) => ({ text: Array.from({ length: 100 }, (_, k) => word(k < 20 ? k : 20 + d * 80 + k)).join(' '), label: d % 3 === 0 ? `l${d % 4}` : undefined }));
+    expect(20 + 3000 * 80).toBeGreaterThan(2 * KEPT_TYPES);
+    const rows: number[][][] = [];
+    for (const threads of [1, 2]) {
+      const recorded = await tallyAndRecord(docs, rules, tmp.path(`spill-${threads}`), { threads });
+      const lexicon = freeze(recorded.tally, { cap: 100_000, snippets: recorded.snippets, now: new Date(0) });
+      const out = collecting();
+      await recorded.encode(lexicon, null, out.sink);
+      const again = collecting();
+      await encodeCorpus(docs, lexicon, null, again.sink);
+      expect(out.rows).toEqual(again.rows);
+      rows.push(out.rows);
+    }
+    expect(rows[1]).toEqual(rows[0]);
   });
 
   it('removes its spill when discarded, and when the corpus fails midway', async () => {
