@@ -160,7 +160,7 @@ async function main(): Promise<void> {
     out.push(`${fixed(idle.maxRssKiB / 1024, 0)} MB. The CLI phases run dist/bin.js itself, as users do, with no loader; their seconds include loading it.`);
     out.push('');
     out.push('End to end, fit + encode vs the baseline (b) count+sort then encode: `lexlock build` then `lexlock encode` (all cores),');
-    out.push('and `lexlock build --encode` (one reading of the corpus, one thread):');
+    out.push('and `lexlock build --encode` (one reading of the corpus, all cores):');
     for (const line of endToEnd) out.push(`  ${line}`);
     out.push(`Thread scaling, build, 1 -> 2 threads: ${scaling === null ? 'n/a' : `${fixed(scaling, 2)}x`}`);
     out.push(`Serving, lexicon of ${f('tokens')} tokens (${fixed(latency.maxRssKiB / 1024, 0)} MB peak RSS):`);
