@@ -99,8 +99,8 @@ function endToEndLine(corpus: Corpus, results: Map<PhaseName, PhaseResult>): str
   const onePassRss = (results.get('build-encode-cli')?.maxRssKiB ?? 0) / 1024;
   const ratio = (x: number) => (x > 0 ? `${fixed(theirs / x, 2)}x` : 'n/a');
   return (
-    `${corpus.name}: build then encode ${fixed(ours, 2)} s vs ${fixed(theirs, 2)} s, ${ratio(ours)}; fit peak RSS ${fixed(fitRss, 0)} MB\n` +
-    `  ${corpus.name}: build --encode (one reading) ${fixed(onePass, 2)} s vs ${fixed(theirs, 2)} s, ${ratio(onePass)}; peak RSS ${fixed(onePassRss, 0)} MB`
+    `${corpus.name}: build then encode ${fixed(ours, 2)} s vs ${fixed(theirs, 2)} s, ${ratio(ours)}; fit peak RSS ${fixed(fitRss, 0)} MiB\n` +
+    `  ${corpus.name}: build --encode (one reading) ${fixed(onePass, 2)} s vs ${fixed(theirs, 2)} s, ${ratio(onePass)}; peak RSS ${fixed(onePassRss, 0)} MiB`
   );
 }
 
@@ -151,19 +151,19 @@ async function main(): Promise<void> {
       out.push(`  ${c.name.padEnd(12)} ${fixed(mb(c.written.bytes), 1).padStart(6)} MB  ${String(c.written.documents).padStart(8)} documents  ${String(c.distinct ?? 0).padStart(8)} distinct tokens`);
     }
     out.push('');
-    out.push(formatTable(['corpus', 'phase', 'MB/s', 'vs (a)', 'vs (b)', 'peak RSS MB', 'seconds'], rows));
+    out.push(formatTable(['corpus', 'phase', 'MB/s', 'vs (a)', 'vs (b)', 'peak RSS MiB', 'seconds'], rows));
     out.push('');
     out.push('vs (a): MB/s over the plain per-document tokenizer (NFKC, lower-case, wink-tokenizer, alien split; texts in memory).');
     out.push('vs (b): MB/s over the hand-written baseline (read files, same tokenizer, count in a Map and sort / look up ids and pad).');
     out.push('tokenize and (a) exclude reading (texts loaded first); every other phase includes reading the corpus. Peak RSS is');
     out.push(`each phase's own child process (process.resourceUsage().maxRSS); an idle library child (Node, tsx loader, lexlock) peaks at`);
-    out.push(`${fixed(idle.maxRssKiB / 1024, 0)} MB. The CLI phases run dist/bin.js itself, as users do, with no loader; their seconds include loading it.`);
+    out.push(`${fixed(idle.maxRssKiB / 1024, 0)} MiB. The CLI phases run dist/bin.js itself, as users do, with no loader; their seconds include loading it.`);
     out.push('');
     out.push('End to end, fit + encode vs the baseline (b) count+sort then encode: `lexlock build` then `lexlock encode` (all cores),');
     out.push('and `lexlock build --encode` (one reading of the corpus, all cores):');
     for (const line of endToEnd) out.push(`  ${line}`);
     out.push(`Thread scaling, build, 1 -> 2 threads: ${scaling === null ? 'n/a' : `${fixed(scaling, 2)}x`}`);
-    out.push(`Serving, lexicon of ${f('tokens')} tokens (${fixed(latency.maxRssKiB / 1024, 0)} MB peak RSS):`);
+    out.push(`Serving, lexicon of ${f('tokens')} tokens (${fixed(latency.maxRssKiB / 1024, 0)} MiB peak RSS):`);
     out.push(`  load: parseLexicon ${fixed(f('parseMs'))} ms, loadLexicon ${fixed(f('loadMs'))} ms (median of 12)`);
     out.push(`  encode one 50-word text: p50 ${fixed(f('p50Micros'))} µs, p99 ${fixed(f('p99Micros'))} µs (20,000 calls after 5,000 warm-up)`);
     process.stdout.write(`${out.join('\n')}\n`);
