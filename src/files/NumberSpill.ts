@@ -1,4 +1,5 @@
-import { open, rm, type FileHandle } from 'node:fs/promises';
+import { mkdir, open, rm, type FileHandle } from 'node:fs/promises';
+import { dirname } from 'node:path';
 import { LexlockError } from '../LexlockError.js';
 import { ioError } from './ioError.js';
 
@@ -33,9 +34,10 @@ export class NumberSpill {
     this.handle = handle;
   }
 
-  /** Creates the file at `path` (refused if something is there already). */
+  /** Creates the file at `path`, and its folder if need be (refused if something is there already). */
   static async create(path: string): Promise<NumberSpill> {
     try {
+      await mkdir(dirname(path), { recursive: true });
       return new NumberSpill(path, await open(path, 'wx+'));
     } catch (e) {
       throw ioError(path, 'creating a temporary file of token numbers', e);

@@ -137,6 +137,15 @@ describe('lexlock build --encode', () => {
     expect((await readdir(tmp.dir)).filter((f) => f.endsWith('.tmp'))).toEqual([]);
   });
 
+  it('creates the folders of both outputs, as a plain build does', async () => {
+    await writeFile(tmp.path('m.csv'), CSV);
+    const r = await cli('build', tmp.path('m.csv'), '-o', tmp.path('new/lex.json'), '--encode', tmp.path('new/deeper/rows.jsonl'));
+    expect(r.stderr).toBe('');
+    expect(r.code).toBe(0);
+    expect(await readdir(tmp.path('new'))).toEqual(['deeper', 'lex.json']);
+    expect((await readFile(tmp.path('new/deeper/rows.jsonl'), 'utf8')).split('\n')).toHaveLength(4);
+  });
+
   it.each([
     ['a tally input', ['--encode', 'x.jsonl'], 'part.tally', '--encode needs a corpus: a tally holds counts, not documents; build from the tally, then run lexlock encode on the corpus'],
     ['--memory-limit', ['--encode', 'x.jsonl', '--memory-limit', '64'], 'm.csv', '--encode cannot be combined with --memory-limit: a bounded build reads the corpus twice anyway; build with --memory-limit, then run lexlock encode'],
