@@ -12,6 +12,18 @@ export default defineConfig([
     target: 'node20',
   },
   {
+    // The serving entry for browsers: load a lexicon and encode, dependencies inlined, minified, in one
+    // file (dist/browser.js, `lexlock/browser`), for pages that load it directly.
+    entry: { browser: 'src/browser.ts' },
+    format: ['esm'],
+    dts: true,
+    platform: 'browser',
+    noExternal: [/.*/],
+    minify: true,
+    sourcemap: true,
+    target: 'es2020',
+  },
+  {
     // The executable and the worker-thread entry it (and dist/node.*) start: dist/bin.js, dist/worker.js.
     entry: { bin: 'src/bin.ts', worker: 'src/workers/worker.ts' },
     format: ['esm'],

@@ -18,6 +18,7 @@ export { freeze, type FreezeOptions } from './lexicon/freeze.js';
 export { Lexicon, PADDING_ID, type Batch, type EncodeOptions } from './lexicon/Lexicon.js';
 export { checkShape, type Shape } from './lexicon/Shape.js';
 export { parseLexicon, type ParseLexiconOptions } from './artifact/parseLexicon.js';
+export { fetchLexicon } from './artifact/fetchLexicon.js';
 export { serializeLexicon } from './artifact/serializeLexicon.js';
 export { canonicalJson } from './artifact/canonicalJson.js';
 export { fingerprintOf } from './artifact/fingerprint.js';

@@ -23,8 +23,8 @@ async function graph(entry: string): Promise<Map<string, string[]>> {
 }
 
 describe('layering', () => {
-  it('the browser entry reaches no node: module and no Node-only folder', async () => {
-    const files = await graph(join(src, 'index.ts'));
+  it.each(['index.ts', 'browser.ts'])('the browser-safe entry %s reaches no node: module and no Node-only folder', async (entry) => {
+    const files = await graph(join(src, entry));
     expect(files.size).toBeGreaterThan(20);
     for (const [file, specifiers] of files) {
       const where = relative(src, file);
