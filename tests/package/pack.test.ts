@@ -1,0 +1,87 @@
+import { execFile } from 'node:child_process';
+import { existsSync } from 'node:fs';
+import { mkdtemp, readFile, rm, writeFile } from 'node:fs/promises';
+import { tmpdir } from 'node:os';
+import { dirname, join } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { promisify } from 'node:util';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+
+// The package as users get it: `npm pack` of the built project, installed into a fresh project (from
+// npm's cache where it can), then used from `import`, from `require` and through `npx lexlock`.
+// `npm test` builds dist/ first.
+const run = promisify(execFile);
+const root = join(dirname(fileURLToPath(import.meta.url)), '..', '..');
+const demo = join(root, 'corpora-demo', 'ferry-messages.csv');
+const NPM = process.platform === 'win32' ? 'npm.cmd' : 'npm';
+const NPX = process.platform === 'win32' ? 'npx.cmd' : 'npx';
+
+let dir = '';
+let consumer = '';
+let files: string[] = [];
+
+beforeAll(async () => {
+  if (!existsSync(join(root, 'dist', 'index.js'))) throw new Error('dist/ is missing: npm test builds it first');
+  dir = await mkdtemp(join(tmpdir(), 'lexlock-pack-'));
+  const packed = await run(NPM, ['pack', '--ignore-scripts', '--json', '--pack-destination', dir], { cwd: root, maxBuffer: 16 << 20 });
+  const [info] = JSON.parse(packed.stdout) as Array<{ filename: string; files: Array<{ path: string }> }>;
+  if (info === undefined) throw new Error(`npm pack said nothing usable: ${packed.stdout}`);
+  files = info.files.map((f) => f.path);
+  consumer = join(dir, 'consumer');
+  await run('mkdir', ['-p', consumer]);
+  await writeFile(join(consumer, 'package.json'), JSON.stringify({ name: 'consumer', version: '1.0.0', private: true }));
+  await run(NPM, ['install', '--no-audit', '--no-fund', '--prefer-offline', join(dir, info.filename)], { cwd: consumer, maxBuffer: 16 << 20 });
+}, 240_000);
+
+afterAll(async () => {
+  if (dir !== '') await rm(dir, { recursive: true, force: true });
+});
+
+describe('the packed package', () => {
+  it('holds only what users need: the built files, the README and package.json', () => {
+    expect(files.filter((f) => !f.startsWith('dist/'))).toEqual(['README.md', 'package.json']);
+    for (const f of ['dist/index.js', 'dist/index.cjs', 'dist/index.d.ts', 'dist/index.d.cts', 'dist/node.js', 'dist/node.cjs', 'dist/browser.js', 'dist/browser.d.ts', 'dist/bin.js', 'dist/worker.js']) {
+      expect(files).toContain(f);
+    }
+  });
+
+  it('works from import: the main entry, lexlock/node on worker threads and lexlock/browser', async () => {
+    const script = `
+      import { Tally, freeze, resolveRules, serializeLexicon, VERSION } from 'lexlock';
+      import { tallyCorpus, readCorpus } from 'lexlock/node';
+      import { parseLexicon } from 'lexlock/browser';
+      const { tally } = await tallyCorpus(readCorpus(${JSON.stringify(demo)}), resolveRules(), { threads: 2 });
+      const one = freeze(Tally.fromTexts(['late ferry', 'late again'], resolveRules()), {});
+      const back = parseLexicon(serializeLexicon(one));
+      console.log(JSON.stringify({ version: VERSION, types: tally.types, ids: Array.from(back.encode('late ferry')) }));
+    `;
+    await writeFile(join(consumer, 'esm.mjs'), script);
+    const { stdout } = await run(process.execPath, ['esm.mjs'], { cwd: consumer });
+    const said = JSON.parse(stdout) as { version: string; types: number; ids: number[] };
+    expect(said.version).toBe((JSON.parse(await readFile(join(root, 'package.json'), 'utf8')) as { version: string }).version);
+    expect(said.types).toBe(4033); // the demo corpus's distinct tokens, as the demo prints them
+    // Worked out by hand: late (2) takes id 2, then again and ferry (1 each) in string order, 3 and 4.
+    expect(said.ids).toEqual([2, 4]);
+  });
+
+  it('works from require: the main entry and lexlock/node on worker threads', async () => {
+    const script = `
+      const { Tally, freeze, resolveRules } = require('lexlock');
+      const { tallyCorpus, readCorpus } = require('lexlock/node');
+      tallyCorpus(readCorpus(${JSON.stringify(demo)}), resolveRules(), { threads: 2 }).then(({ tally }) => {
+        const one = freeze(Tally.fromTexts(['late ferry', 'late again'], resolveRules()), {});
+        console.log(JSON.stringify({ types: tally.types, tokens: one.encoding.tokens }));
+      });
+    `;
+    await writeFile(join(consumer, 'cjs.cjs'), script);
+    const { stdout } = await run(process.execPath, ['cjs.cjs'], { cwd: consumer });
+    expect(JSON.parse(stdout)).toEqual({ types: 4033, tokens: ['late', 'again', 'ferry'] });
+  });
+
+  it('works through npx lexlock: build, then verify the lexicon', async () => {
+    const lexicon = join(consumer, 'lexicon.json');
+    await run(NPX, ['--no-install', 'lexlock', 'build', demo, '-o', lexicon, '--label', 'topic', '--cap', '500', '--quiet'], { cwd: consumer });
+    const { stdout } = await run(NPX, ['--no-install', 'lexlock', 'verify', lexicon], { cwd: consumer });
+    expect(stdout).toContain('vocabulary       500 tokens; padding 0, OOV 1; input dimension 502');
+  });
+});
