@@ -1,7 +1,5 @@
 import { existsSync } from 'node:fs';
 import { mkdtemp, readFile, rm } from 'node:fs/promises';
-import { createServer, type Server } from 'node:http';
-import type { AddressInfo } from 'node:net';
 import { tmpdir } from 'node:os';
 import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -11,14 +9,13 @@ import { chromium, type Browser, type Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { run } from '../../src/cli.js';
 import { readCorpus } from '../../src/corpus/readCorpus.js';
+import { CHROMIUM, CHROMIUM_ARGS, chromiumMissing, serveFiles } from '../helpers/chromium.js';
 
 // The promise of a lexicon file is the same ids wherever it is loaded. This test loads the built
 // browser bundle (dist/browser.js, `npm run test:browser` builds it first) in Debian's Chromium, has
 // it encode a few hundred texts with a lexicon the CLI built, and compares every id with the built
 // Node entry's. It never skips: without the browser every test fails, saying how to install it.
-const CHROMIUM = '/usr/bin/chromium';
-const MISSING = `${CHROMIUM} is missing: install Debian's chromium (apt-get install chromium) to run the browser parity test`;
-const ARGS = ['--headless', '--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update', '--disable-sync', '--no-first-run'];
+const MISSING = chromiumMissing('the browser parity test');
 const root = join(dirname(fileURLToPath(import.meta.url)), '..', '..');
 const dist = join(root, 'dist');
 const demo = join(root, 'corpora-demo', 'ferry-messages.csv');
@@ -42,7 +39,7 @@ interface Encoded {
 }
 
 let dir = '';
-let server: Server | undefined;
+let server: { origin: string; close: () => Promise<void> } | undefined;
 let browser: Browser | undefined;
 let page: Page | undefined;
 let origin = '';
@@ -95,23 +92,9 @@ beforeAll(async () => {
     '/lexicon.json': ['application/json; charset=utf-8', lexiconText],
     '/texts.json': ['application/json; charset=utf-8', JSON.stringify(texts)],
   };
-  server = createServer((req, res) => {
-    const file = files[req.url ?? ''];
-    if (file === undefined) {
-      res.writeHead(404, { 'content-type': 'text/plain' });
-      res.end('not here');
-      return;
-    }
-    res.writeHead(200, { 'content-type': file[0] });
-    res.end(file[1]);
-  });
-  const listening = server;
-  await new Promise<void>((resolve, reject) => {
-    listening.once('error', reject);
-    listening.listen(0, '127.0.0.1', () => resolve());
-  });
-  origin = `http://127.0.0.1:${String((listening.address() as AddressInfo).port)}`;
-  browser = await chromium.launch({ executablePath: CHROMIUM, args: ARGS, timeout: 60_000 });
+  server = await serveFiles(files);
+  origin = server.origin;
+  browser = await chromium.launch({ executablePath: CHROMIUM, args: CHROMIUM_ARGS, timeout: 60_000 });
   page = await browser.newPage();
   page.on('request', (r) => requests.push(r.url()));
   page.on('pageerror', (e) => pageErrors.push(e.message));
@@ -121,10 +104,7 @@ beforeAll(async () => {
 
 afterAll(async () => {
   await browser?.close();
-  if (server !== undefined) {
-    server.closeAllConnections();
-    await new Promise<void>((resolve) => server?.close(() => resolve()));
-  }
+  await server?.close();
   if (dir !== '') await rm(dir, { recursive: true, force: true });
 });
 
