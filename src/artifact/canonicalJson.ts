@@ -15,11 +15,33 @@ export function canonicalJson(value: unknown): string {
 
 const LONE_SURROGATE = /[\uD800-\uDBFF](?![\uDC00-\uDFFF])|(?<![\uD800-\uDBFF])[\uDC00-\uDFFF]/;
 
+/** True when `s` has no lone surrogate (the engine's own check where it has one: ES2024). */
+const wellFormed: (s: string) => boolean =
+  typeof (String.prototype as { isWellFormed?: unknown }).isWellFormed === 'function'
+    ? (s) => (s as string & { isWellFormed(): boolean }).isWellFormed()
+    : (s) => !LONE_SURROGATE.test(s);
+
+function loneSurrogate(path: string): LexlockError {
+  return new LexlockError('BAD_OPTION', `${path}: a string holds a lone surrogate, which canonical JSON cannot carry`, { field: path });
+}
+
 function writeString(s: string, parts: string[], path: string): void {
-  if (LONE_SURROGATE.test(s)) {
-    throw new LexlockError('BAD_OPTION', `${path}: a string holds a lone surrogate, which canonical JSON cannot carry`, { field: path });
-  }
+  if (!wellFormed(s)) throw loneSurrogate(path);
   parts.push(JSON.stringify(s));
+}
+
+/**
+ * An array of strings only (a lexicon's token list) in one `JSON.stringify` call, which gives the same
+ * text as item by item (RFC 8785 strings are ECMAScript's); false when an item is not a string.
+ */
+function writeStrings(items: readonly unknown[], parts: string[], path: string): boolean {
+  for (let i = 0; i < items.length; i++) {
+    const item = items[i];
+    if (typeof item !== 'string') return false;
+    if (!wellFormed(item)) throw loneSurrogate(`${path}[${i}]`);
+  }
+  parts.push(JSON.stringify(items));
+  return true;
 }
 
 function write(value: unknown, parts: string[], path: string): void {
@@ -36,6 +58,7 @@ function write(value: unknown, parts: string[], path: string): void {
   } else if (typeof value === 'string') {
     writeString(value, parts, path);
   } else if (Array.isArray(value)) {
+    if (value.length > 0 && writeStrings(value, parts, path)) return;
     parts.push('[');
     value.forEach((item: unknown, i) => {
       if (i > 0) parts.push(',');

@@ -63,15 +63,16 @@ export class Lexicon {
     this.ids = new Map();
     for (let i = 0; i < n; i++) {
       const token = encoding.tokens[i] as string;
-      const previous = this.ids.get(token);
-      if (previous !== undefined) {
+      this.ids.set(token, i + this.firstTokenId);
+      // One hash operation a token: a token seen before leaves the size as it was.
+      if (this.ids.size !== i + 1) {
+        const previous = encoding.tokens.indexOf(token) + this.firstTokenId;
         throw new LexlockError(
           'DUPLICATE_TOKEN',
           `"${token}" stands at ids ${previous} and ${i + this.firstTokenId}; every token must appear once in encoding.tokens`,
           { field: 'encoding.tokens' },
         );
       }
-      this.ids.set(token, i + this.firstTokenId);
     }
     this.labelIds = new Map((encoding.labels ?? []).map((label, i) => [label, i]));
   }
