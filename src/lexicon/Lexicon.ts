@@ -153,13 +153,17 @@ export class Lexicon {
    * @example lexicon.encode('late again', { shape: { length: 4, pad: 'pre', cut: 'post' } }) // [0, 0, 17, 93]
    */
   encode(text: string, options: EncodeOptions = {}): Int32Array {
-    const ids = this.idsOf(this.tokenize(text));
+    const tokens = this.tokenize(text);
     const shape = options.shape === undefined ? this.encoding.shape : options.shape;
-    if (shape === null) return ids;
+    if (shape === null) return this.idsOf(tokens);
+    // Straight from tokens into the output: no array of all ids first, and cut tokens are never looked up.
     const out = new Int32Array(shape.length);
-    shapeInto(ids, shape, out, 0);
+    shapeInto(tokens, shape, out, 0, this.idOfToken);
     return out;
   }
+
+  /** The id of one token (OOV for an unknown one), bound once so encode passes it without a new closure. */
+  private readonly idOfToken = (token: string): number => this.ids.get(token) ?? this.oovId;
 
   /**
    * Encodes many texts into one row-major batch. Without a shape (given or stored) every row is as

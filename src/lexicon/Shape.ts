@@ -29,12 +29,16 @@ export function checkShape(shape: Shape): Shape {
  * returns how many ids were kept: min(ids.length, shape.length).
  * @example shapeInto([5, 6, 7], { length: 2, pad: 'pre', cut: 'pre' }, out, 0) // out = [6, 7], returns 2
  */
-export function shapeInto(ids: ArrayLike<number>, shape: Shape, out: Int32Array, offset: number): number {
-  const n = ids.length;
+export function shapeInto(ids: ArrayLike<number>, shape: Shape, out: Int32Array, offset: number): number;
+/** The same, for items that `idOf` turns into ids one by one (only the kept ones are looked up). */
+export function shapeInto<T>(items: ArrayLike<T>, shape: Shape, out: Int32Array, offset: number, idOf: (item: T) => number): number;
+export function shapeInto<T>(items: ArrayLike<T>, shape: Shape, out: Int32Array, offset: number, idOf?: (item: T) => number): number {
+  const n = items.length;
   const length = shape.length;
   const kept = n < length ? n : length;
   const from = n > length && shape.cut === 'pre' ? n - length : 0;
   const to = offset + (shape.pad === 'pre' ? length - kept : 0);
-  for (let i = 0; i < kept; i++) out[to + i] = ids[from + i] ?? 0;
+  if (idOf === undefined) for (let i = 0; i < kept; i++) out[to + i] = (items[from + i] as number | undefined) ?? 0;
+  else for (let i = 0; i < kept; i++) out[to + i] = idOf(items[from + i] as T);
   return kept;
 }
