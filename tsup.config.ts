@@ -6,7 +6,8 @@ export default defineConfig([
     format: ['esm', 'cjs'],
     dts: true,
     sourcemap: true,
-    clean: true,
+    // No clean here: the configs build at the same time, and one cleaning dist/ could delete another's
+    // output (the browser entry's types went missing that way). `npm run build` empties dist/ first.
     // import.meta.url in the CommonJS build, so worker threads find dist/worker.js from either build.
     shims: true,
     target: 'node20',
