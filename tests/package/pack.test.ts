@@ -38,8 +38,8 @@ afterAll(async () => {
 });
 
 describe('the packed package', () => {
-  it('holds only what users need: the built files, the README and package.json', () => {
-    expect(files.filter((f) => !f.startsWith('dist/'))).toEqual(['README.md', 'package.json']);
+  it('holds only what users need: the built files, the licence, the README and package.json', () => {
+    expect(files.filter((f) => !f.startsWith('dist/'))).toEqual(['LICENSE', 'README.md', 'package.json']);
     for (const f of ['dist/index.js', 'dist/index.cjs', 'dist/index.d.ts', 'dist/index.d.cts', 'dist/node.js', 'dist/node.cjs', 'dist/browser.js', 'dist/browser.d.ts', 'dist/bin.js', 'dist/worker.js']) {
       expect(files).toContain(f);
     }
