@@ -40,6 +40,7 @@ Run lexlock <command> --help for a command's flags.
 /**
  * Runs the CLI on `argv` (without the node and script names) and returns the exit code:
  * 0 ok, 1 bad input, 2 bad usage, 3 audit threshold crossed. Errors are printed as one line.
+ * @example const code = await run(['verify', 'lexicon.json'], { stdout: process.stdout, stderr: process.stderr, env: process.env });
  */
 export async function run(argv: readonly string[], io: Io): Promise<number> {
   const [name, ...rest] = argv;

@@ -5,6 +5,7 @@ export { saveLexicon, type SaveLexiconOptions } from './files/saveLexicon.js';
 export { loadLexicon } from './files/loadLexicon.js';
 export { writeFileAtomic } from './files/atomicWrite.js';
 export { tallyCorpus, type CorpusTally, type TallyCorpusOptions } from './pipeline/tallyCorpus.js';
+export { tallyAndRecord, type RecordedTally } from './pipeline/tallyAndRecord.js';
 export { encodeCorpus, type EncodeStats, type RowSink, type EncodeCorpusOptions } from './pipeline/encodeCorpus.js';
 export { auditOnThreads } from './pipeline/auditOnThreads.js';
 export { boundedCorpusTally, type BoundedCorpusOptions } from './pipeline/boundedCorpusTally.js';

@@ -14,6 +14,7 @@ export interface SaveLexiconOptions {
 /**
  * Writes a lexicon file atomically (temporary file in the same folder, fsync, rename): a crash or
  * Ctrl-C leaves the old file or the new one, never half of one. Missing parent folders are created.
+ * @example await saveLexicon('models/reviews/lexicon.json', freeze(tally, { cap: 20000 }), { force: true });
  */
 export async function saveLexicon(path: string, lexicon: Lexicon, options: SaveLexiconOptions = {}): Promise<void> {
   await assertWritable(path, options.force ?? false);

@@ -10,6 +10,7 @@ import { WorkerPool } from '../workers/WorkerPool.js';
 /**
  * `auditCorpus` on worker threads: each thread counts batches with the same AuditCounts, the counts
  * are merged and the report made once, so it is the same report as on one thread.
+ * @example const report = await auditOnThreads(readCorpus('live.jsonl'), lexicon, { threads: 4 }); // report.oovRate
  */
 export async function auditOnThreads(
   documents: AsyncIterable<string | LabelledText> | Iterable<string | LabelledText>,

@@ -19,6 +19,8 @@ export interface BoundedCorpusOptions {
  * each time), exact for every token that can make the cap (see boundedTally), canary snippets kept as
  * tallyCorpus keeps them. Counts of tokens that cannot make the cap are left out, so the fit's `types`
  * and coverage speak only of the tokens counted.
+ * @example
+ * const { tally, snippets } = await boundedCorpusTally(() => readCorpus('big.txt'), resolveRules(), { cap: 50000, minCount: 1, reserved: [], memoryLimitMiB: 256 });
  */
 export async function boundedCorpusTally(
   open: () => AsyncIterable<string | LabelledText>,

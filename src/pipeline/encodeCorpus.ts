@@ -66,6 +66,10 @@ export function rowWriter(lexicon: Lexicon, shape: Shape | null, sink: RowSink) 
 /**
  * Encodes a stream of documents with a lexicon, row by row, into a sink: the same tokenize and id
  * path as `Lexicon.encode`, holding one row (or, with threads, a few batches) at a time.
+ * @example
+ * const rows: number[][] = [];
+ * const stats = await encodeCorpus(readCorpus('held-out.jsonl'), lexicon, lexicon.shape, { row: (ids) => void rows.push([...ids]) });
+ * stats.oovTokens / stats.tokens // the OOV rate of the held-out set
  */
 export async function encodeCorpus(
   documents: AsyncIterable<string | LabelledText> | Iterable<string | LabelledText>,

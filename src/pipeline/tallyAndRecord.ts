@@ -45,6 +45,10 @@ class LabelNumbers {
  * second pass. Numbers are those of the final tally (`Tally.numberOf`) for documents counted on this
  * thread; a worker's are those of the counts it keeps, mapped once it sends them. The caller removes
  * the file with `discard` if it does not encode.
+ * @example
+ * const recorded = await tallyAndRecord(readCorpus('train.csv', { label: 'topic' }), resolveRules(), 'train.numbers.tmp');
+ * const lexicon = freeze(recorded.tally, { cap: 20000, snippets: recorded.snippets, shape: { length: 80, pad: 'pre', cut: 'post' } });
+ * await recorded.encode(lexicon, lexicon.shape, { row: (ids) => void train.push([...ids]) });
  */
 export async function tallyAndRecord(
   documents: AsyncIterable<string | LabelledText> | Iterable<string | LabelledText>,

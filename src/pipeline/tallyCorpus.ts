@@ -43,6 +43,9 @@ export function snippetKeeper(): { snippets: string[]; see: (text: string) => vo
  * Tallies a stream of documents (a corpus reader, or any async iterable of texts) under `rules`,
  * holding only the counts, and keeps a few short documents as canary snippets. With
  * `threads` > 1 the documents are tokenized in worker threads in batches; the result is identical.
+ * @example
+ * const { tally, snippets } = await tallyCorpus(readCorpus('reviews.csv', { label: 'topic' }), resolveRules(), { threads: 4 });
+ * const lexicon = freeze(tally, { cap: 20000, snippets });
  */
 export async function tallyCorpus(
   documents: AsyncIterable<string | LabelledText> | Iterable<string | LabelledText>,

@@ -62,6 +62,8 @@ async function candidatesOf(
  * counted exactly, because the cap-th exact count exceeds the most any other token can have. When that
  * cannot be shown, it throws `MEMORY_LIMIT` with the budget that would suffice. `open` must give the same
  * documents each time it is called.
+ * @example
+ * const { tally } = await boundedTally(() => readCorpus('big.txt'), resolveRules(), { cap: 50000, minCount: 1, budgetBytes: 200 * 2 ** 20 });
  */
 export async function boundedTally(
   open: () => AsyncIterable<string | LabelledText> | Iterable<string | LabelledText>,

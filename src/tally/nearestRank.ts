@@ -28,7 +28,8 @@ export interface LengthSummary {
   max: number;
 }
 
-/** Summarizes a length histogram with {@link nearestRank}. */
+/** Summarizes a length histogram with {@link nearestRank}.
+ */
 export function summarizeLengths(histogram: ReadonlyMap<number, number>): LengthSummary {
   return {
     min: nearestRank(histogram, 0),
