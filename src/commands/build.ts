@@ -140,7 +140,8 @@ export async function build(argv: readonly string[], io: Io): Promise<number> {
   let out = `wrote ${output}\n${describeLexiconText(lexicon)}`;
   out += badTextNotes(stats);
   if (recorded !== null && encodeTo !== undefined) {
-    const sink = await openEncodedOutput(encodeTo, shape, { lexicon, lexiconPath: output, corpus, readStats: stats }).catch(async (e: unknown) => {
+    const source = { lexicon, lexiconPath: output, corpus, readStats: stats };
+    const sink = await openEncodedOutput(encodeTo, shape, source).catch(async (e: unknown) => {
       await recorded?.discard();
       throw e;
     });
@@ -152,7 +153,7 @@ export async function build(argv: readonly string[], io: Io): Promise<number> {
       await sink.abort();
       throw e;
     }
-    out += `wrote ${encodeTo}\n${pairs(encodedSummary(encoded, shape, lexicon, output, stats))}`;
+    out += `wrote ${encodeTo}\n${pairs(encodedSummary(encoded, shape, source))}`;
   }
   io.stdout.write(out);
   return 0;

@@ -65,7 +65,8 @@ export async function encode(argv: readonly string[], io: Io): Promise<number> {
 
   const progress = createProgress(io, 'encode', { quiet: args.switches.has('quiet'), totalBytes: await corpusBytes(corpus) });
   const reader = readCorpus(corpus, { ...options, onProgress: (p) => progress.update(p) });
-  const sink = await openEncodedOutput(output, shape, { lexicon, lexiconPath, corpus, readStats: reader.stats });
+  const source = { lexicon, lexiconPath, corpus, readStats: reader.stats };
+  const sink = await openEncodedOutput(output, shape, source);
   let stats: EncodeStats;
   try {
     stats = await encodeCorpus(reader, lexicon, shape, sink, { threads: threadsFlag(args, await corpusBytes(corpus)) });
@@ -76,6 +77,6 @@ export async function encode(argv: readonly string[], io: Io): Promise<number> {
   } finally {
     progress.done();
   }
-  io.stdout.write(`wrote ${output}\n${pairs(encodedSummary(stats, shape, lexicon, lexiconPath, reader.stats))}`);
+  io.stdout.write(`wrote ${output}\n${pairs(encodedSummary(stats, shape, source))}`);
   return 0;
 }

@@ -58,7 +58,8 @@ export async function openEncodedOutput(output: string, shape: Shape | null, sou
 }
 
 /** The summary lines of an encode run, as `lexlock encode` prints them. */
-export function encodedSummary(stats: EncodeStats, shape: Shape | null, lexicon: Lexicon, lexiconPath: string, readStats: Pick<CorpusStats, 'replaced' | 'skipped'>): Array<[string, string]> {
+export function encodedSummary(stats: EncodeStats, shape: Shape | null, source: EncodedSource): Array<[string, string]> {
+  const { lexicon, lexiconPath, readStats } = source;
   const rows: Array<[string, string]> = [
     ['lexicon', `${lexiconPath} (${lexicon.fingerprint})`],
     ['rows', `${count(stats.documents)}${shape === null ? ', variable length' : ` x ${shape.length} (pad ${shape.pad}, cut ${shape.cut})`}`],

@@ -1,4 +1,4 @@
-import { LexlockError } from '../LexlockError.js';
+import { inputError } from '../LexlockError.js';
 import { NumberSpill } from '../files/NumberSpill.js';
 import type { Lexicon } from '../lexicon/Lexicon.js';
 import type { Shape } from '../lexicon/Shape.js';
@@ -79,12 +79,8 @@ export async function tallyAndRecord(
       const pool = WorkerPool.start({ kind: 'tally', rules, numbered: true }, threads, { tally });
       const merge = (reply: WorkerReply) => {
         if (!('tally' in reply)) return;
-        const { types } = reply.tally;
-        tally.mergeCounts(reply.tally);
-        const map = new Int32Array(types.length);
-        types.forEach((token, i) => {
-          map[i] = tally.numberOf(token);
-        });
+        const map = new Int32Array(reply.tally.types.length);
+        tally.mergeCounts(reply.tally, map);
         groups.set(reply.group, map);
       };
       try {
@@ -127,7 +123,7 @@ export async function tallyAndRecord(
         for await (const { label, group, numbers } of spill.documents()) {
           const table = idsOfGroup.get(group);
           if (table === undefined) {
-            throw new LexlockError('IO', `${spill.path}: a document's token numbers are of group ${group}, which no counts came with; something else changed the temporary file, or this is a lexlock bug`, { file: spill.path });
+            throw inputError('IO', { file: spill.path }, `a document's token numbers are of group ${group}, which no counts came with; something else changed the temporary file, or this is a lexlock bug`);
           }
           if (numbers.length > ids.length) ids = new Int32Array(Math.max(numbers.length, ids.length * 2));
           const row = ids.subarray(0, numbers.length);

@@ -169,15 +169,23 @@ export class Tally {
    */
   addToken(token: string, count: number, documents: number): this {
     this.#changed();
-    const e = this.#entries.get(token);
+    this.#addCounts(token, count, documents);
+    return this;
+  }
+
+  /** {@link Tally.addToken} without the cache reset; returns the token's number. */
+  #addCounts(token: string, count: number, documents: number): number {
+    let e = this.#entries.get(token);
     // `last` 0 matches no document counted here, so a later document still counts as a new one.
-    if (e === undefined) this.#entries.set(token, { id: this.#entries.size, count, documents, last: 0 });
-    else {
+    if (e === undefined) {
+      e = { id: this.#entries.size, count, documents, last: 0 };
+      this.#entries.set(token, e);
+    } else {
       e.count += count;
       e.documents += documents;
       e.last = 0;
     }
-    return this;
+    return e.id;
   }
 
   /** Tokenizes and counts one text (or labelled text); returns its tokens. */
@@ -202,12 +210,18 @@ export class Tally {
 
   /**
    * Adds counts made elsewhere under this tally's rules, such as a worker thread's tally of a batch
-   * (see {@link Tally.toCounts}). The caller vouches for the rules; prefer `merge`.
+   * (see {@link Tally.toCounts}). The caller vouches for the rules; prefer `merge`. Given `numbers`
+   * (as long as `other.types`), writes there what each of those tokens is numbered here.
    */
-  mergeCounts(other: TallyCounts): this {
+  mergeCounts(other: TallyCounts, numbers?: Int32Array): this {
+    this.#changed();
     this.documents += other.documents;
     this.tokens += other.tokens;
-    other.types.forEach((token, i) => this.addToken(token, other.occurrences[i] as number, other.documentFrequency[i] as number));
+    const { types, occurrences, documentFrequency } = other;
+    for (let i = 0; i < types.length; i++) {
+      const n = this.#addCounts(types[i] as string, occurrences[i] as number, documentFrequency[i] as number);
+      if (numbers !== undefined) numbers[i] = n;
+    }
     for (const [length, n] of other.lengths) this.lengths.set(length, (this.lengths.get(length) ?? 0) + n);
     for (const [label, c] of other.labels) addLabel(this.labels, label, c.documents, c.tokens);
     return this;

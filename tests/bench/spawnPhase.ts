@@ -8,14 +8,12 @@ const root = join(here, '..', '..');
 
 /** The `lexlock` arguments of the phases that run the command-line tool as users do. */
 function cliArguments(spec: PhaseSpec): string[] | null {
-  if (spec.phase === 'build-cli') {
-    const args = ['build', spec.corpus, '-o', `${spec.lexicon}.cli.json`, '--cap', String(spec.cap), '--length', String(spec.length), '--quiet', '--force'];
+  const build = (lexicon: string, more: string[]) => {
+    const args = ['build', spec.corpus, '-o', lexicon, '--cap', String(spec.cap), '--length', String(spec.length), ...more, '--quiet', '--force'];
     return spec.label === undefined ? args : [...args, '--label', spec.label];
-  }
-  if (spec.phase === 'build-encode-cli') {
-    const args = ['build', spec.corpus, '-o', `${spec.lexicon}.one-pass.json`, '--cap', String(spec.cap), '--length', String(spec.length), '--encode', `${spec.out}-one-pass`, '--quiet', '--force'];
-    return spec.label === undefined ? args : [...args, '--label', spec.label];
-  }
+  };
+  if (spec.phase === 'build-cli') return build(`${spec.lexicon}.cli.json`, []);
+  if (spec.phase === 'build-encode-cli') return build(`${spec.lexicon}.one-pass.json`, ['--encode', `${spec.out}-one-pass`]);
   if (spec.phase === 'encode-npy') return ['encode', spec.corpus, '--lexicon', spec.lexicon, '-o', spec.out, '--quiet', '--force'];
   return null;
 }

@@ -4,7 +4,7 @@ import type { AddressInfo } from 'node:net';
 /** Debian's Chromium, driven by playwright-core; never a downloaded browser. */
 export const CHROMIUM = '/usr/bin/chromium';
 /** Headless, and nothing that talks to the network on its own. */
-export const CHROMIUM_ARGS = ['--headless', '--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update', '--disable-sync', '--no-first-run'];
+export const CHROMIUM_ARGS = ['--headless', '--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update', '--disable-sync', '--no-first-run', '--disable-quic'];
 
 /** The failure of a browser test when Chromium is missing: such tests fail, never skip. */
 export function chromiumMissing(what: string): string {

@@ -8,13 +8,12 @@ import { promisify } from 'node:util';
 import { chromium, type Browser, type Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { renderReport } from '../../../src/audit/report/renderReport.js';
+import { CHROMIUM, CHROMIUM_ARGS, chromiumMissing } from '../../helpers/chromium.js';
 import { ferryContext, ferryReport, SCRIPT_TOKEN } from './reportFixture.js';
 
 // The page is checked against a real browser: Debian's Chromium parses, lays out, prints and
 // screenshots it. These tests never skip: without the browser every one fails, saying how to install it.
-const CHROMIUM = '/usr/bin/chromium';
-const MISSING = `${CHROMIUM} is missing: install Debian's chromium (apt-get install chromium) to run the report's browser test`;
-const ARGS = ['--headless', '--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update', '--disable-sync', '--no-first-run', '--disable-quic'];
+const MISSING = chromiumMissing("the report's browser test");
 /** A4 is 210 mm wide; less the page's 14 mm margins on each side, at 96 CSS px per inch. */
 const A4_PRINTABLE_PX = Math.floor(((210 - 2 * 14) / 25.4) * 96);
 /** Set this to a file path to keep the full-page screenshot for a look. */
@@ -63,7 +62,7 @@ beforeAll(async () => {
   });
   origin = `http://127.0.0.1:${String((listening.address() as AddressInfo).port)}`;
 
-  browser = await chromium.launch({ executablePath: CHROMIUM, args: ARGS, timeout: 60_000 });
+  browser = await chromium.launch({ executablePath: CHROMIUM, args: CHROMIUM_ARGS, timeout: 60_000 });
   page = await browser.newPage({ viewport: { width: 900, height: 1200 } });
   page.on('request', (request) => requests.push(request.url()));
   page.on('console', (message) => {
