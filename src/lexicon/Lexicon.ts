@@ -1,10 +1,13 @@
 import { LexlockError } from '../LexlockError.js';
 import { fingerprintOf } from '../artifact/fingerprint.js';
 import type { Canary, Encoding, Fit } from '../artifact/schema.js';
+import { scanTokens } from '../rules/scanTokens.js';
+import { SpanIndex } from '../rules/SpanIndex.js';
 import { tokenize } from '../rules/tokenize.js';
 import type { TextRules } from '../rules/TextRules.js';
+import { TokenSpans } from '../rules/TokenSpans.js';
 import type { LabelledText } from '../tally/Tally.js';
-import { shapeInto, type Shape } from './Shape.js';
+import { shapeEach, shapeInto, type Shape } from './Shape.js';
 
 /** Id 0 is always padding. */
 export const PADDING_ID = 0;
@@ -22,6 +25,11 @@ export interface Batch {
   length: number;
   labels?: Int32Array;
 }
+
+/** Where encode scans each text (encode is synchronous, so one buffer serves every lexicon). */
+const spans = new TokenSpans();
+/** The options encodeMany encodes each row with before shaping the batch. */
+const VARIABLE_LENGTH: EncodeOptions = Object.freeze({ shape: null });
 
 /** Options of {@link Lexicon.encode}: a shape to apply, or `null` for variable length. */
 export interface EncodeOptions {
@@ -45,7 +53,8 @@ export class Lexicon {
   readonly oovId: number;
   /** First id of the token list (`encoding.tokens[0]`). */
   private readonly firstTokenId: number;
-  private readonly ids: Map<string, number>;
+  /** The tokens, numbered in order: id = number + firstTokenId. */
+  private readonly index: SpanIndex;
   private readonly labelIds: Map<string, number>;
 
   /**
@@ -60,13 +69,13 @@ export class Lexicon {
     const n = encoding.tokens.length;
     this.firstTokenId = encoding.layout.oov === 'first' ? 2 : 1;
     this.oovId = encoding.layout.oov === 'first' ? 1 : n + 1;
-    this.ids = new Map();
+    this.index = new SpanIndex();
     for (let i = 0; i < n; i++) {
       const token = encoding.tokens[i] as string;
-      this.ids.set(token, i + this.firstTokenId);
-      // One hash operation a token: a token seen before leaves the size as it was.
-      if (this.ids.size !== i + 1) {
-        const previous = encoding.tokens.indexOf(token) + this.firstTokenId;
+      // A token seen before keeps its first number.
+      const number = this.index.add(token);
+      if (number !== i) {
+        const previous = number + this.firstTokenId;
         throw new LexlockError(
           'DUPLICATE_TOKEN',
           `"${token}" stands at ids ${previous} and ${i + this.firstTokenId}; every token must appear once in encoding.tokens`,
@@ -99,12 +108,13 @@ export class Lexicon {
 
   /** The id of a token, or {@link oovId} when it is not in the vocabulary. */
   idOf(token: string): number {
-    return this.ids.get(token) ?? this.oovId;
+    const number = this.index.indexOf(token);
+    return number < 0 ? this.oovId : number + this.firstTokenId;
   }
 
   /** True when the token has an id of its own. */
   has(token: string): boolean {
-    return this.ids.has(token);
+    return this.index.indexOf(token) >= 0;
   }
 
   /** The token with this id; null for padding and OOV. Throws `ID_OUT_OF_RANGE` for ids outside 0…size-1. */
@@ -144,26 +154,38 @@ export class Lexicon {
   /** Ids of already-tokenized text, variable length. */
   idsOf(tokens: readonly string[]): Int32Array {
     const out = new Int32Array(tokens.length);
-    for (let i = 0; i < tokens.length; i++) out[i] = this.ids.get(tokens[i] as string) ?? this.oovId;
+    for (let i = 0; i < tokens.length; i++) out[i] = this.idOf(tokens[i] as string);
     return out;
   }
 
   /**
    * Encodes one text: variable length, or shaped (the lexicon's shape by default, or `options.shape`).
+   * Tokens are looked up where they lie in the text, so encoding ASCII text whose chunks are plain or
+   * met before allocates only the returned ids (see {@link scanTokens}); cut tokens are never looked up.
    * @example lexicon.encode('late again', { shape: { length: 4, pad: 'pre', cut: 'post' } }) // [0, 0, 17, 93]
    */
-  encode(text: string, options: EncodeOptions = {}): Int32Array {
-    const tokens = this.tokenize(text);
-    const shape = options.shape === undefined ? this.encoding.shape : options.shape;
-    if (shape === null) return this.idsOf(tokens);
-    // Straight from tokens into the output: no array of all ids first, and cut tokens are never looked up.
+  encode(text: string, options?: EncodeOptions): Int32Array {
+    const shape = options?.shape === undefined ? this.encoding.shape : options.shape;
+    const count = scanTokens(text, this.encoding.rules, spans, true).count;
+    if (shape === null) {
+      const out = new Int32Array(count);
+      for (let k = 0; k < count; k++) out[k] = this.idOfSpan(k);
+      return out;
+    }
     const out = new Int32Array(shape.length);
-    shapeInto(tokens, shape, out, 0, this.idOfToken);
+    shapeEach(count, shape, out, 0, this.idOfSpan);
     return out;
   }
 
-  /** The id of one token (OOV for an unknown one), bound once so encode passes it without a new closure. */
-  private readonly idOfToken = (token: string): number => this.ids.get(token) ?? this.oovId;
+  /** The id of token `k` of the text encode scanned last, bound once so encode passes it without a new closure. */
+  private readonly idOfSpan = (k: number): number => {
+    const start = spans.starts[k] as number;
+    const number =
+      start >= 0
+        ? this.index.indexOfSpan(spans.text, start, spans.ends[k] as number, spans.folded)
+        : this.index.indexOf(spans.strings[k] as string);
+    return number < 0 ? this.oovId : number + this.firstTokenId;
+  };
 
   /**
    * Encodes many texts into one row-major batch. Without a shape (given or stored) every row is as
@@ -176,7 +198,7 @@ export class Lexicon {
     let labelled = false;
     for (const item of texts) {
       const text = typeof item === 'string' ? item : item.text;
-      rowsIds.push(this.idsOf(this.tokenize(text)));
+      rowsIds.push(this.encode(text, VARIABLE_LENGTH));
       const label = typeof item === 'string' ? undefined : item.label;
       if (label !== undefined) labelled = true;
       labels.push(label === undefined ? -1 : (this.labelIds.get(label) ?? -1));

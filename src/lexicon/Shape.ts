@@ -29,16 +29,19 @@ export function checkShape(shape: Shape): Shape {
  * returns how many ids were kept: min(ids.length, shape.length).
  * @example shapeInto([5, 6, 7], { length: 2, pad: 'pre', cut: 'pre' }, out, 0) // out = [6, 7], returns 2
  */
-export function shapeInto(ids: ArrayLike<number>, shape: Shape, out: Int32Array, offset: number): number;
-/** The same, for items that `idOf` turns into ids one by one (only the kept ones are looked up). */
-export function shapeInto<T>(items: ArrayLike<T>, shape: Shape, out: Int32Array, offset: number, idOf: (item: T) => number): number;
-export function shapeInto<T>(items: ArrayLike<T>, shape: Shape, out: Int32Array, offset: number, idOf?: (item: T) => number): number {
-  const n = items.length;
+export function shapeInto(ids: ArrayLike<number>, shape: Shape, out: Int32Array, offset: number): number {
+  return shapeEach(ids.length, shape, out, offset, (k) => ids[k] ?? 0);
+}
+
+/**
+ * The same for `count` items that `idAt(k)` turns into ids: only the kept items are asked for.
+ * @example shapeEach(3, { length: 2, pad: 'pre', cut: 'post' }, out, 0, (k) => 10 + k) // out = [10, 11], returns 2
+ */
+export function shapeEach(count: number, shape: Shape, out: Int32Array, offset: number, idAt: (k: number) => number): number {
   const length = shape.length;
-  const kept = n < length ? n : length;
-  const from = n > length && shape.cut === 'pre' ? n - length : 0;
+  const kept = count < length ? count : length;
+  const from = count > length && shape.cut === 'pre' ? count - length : 0;
   const to = offset + (shape.pad === 'pre' ? length - kept : 0);
-  if (idOf === undefined) for (let i = 0; i < kept; i++) out[to + i] = (items[from + i] as number | undefined) ?? 0;
-  else for (let i = 0; i < kept; i++) out[to + i] = idOf(items[from + i] as T);
+  for (let i = 0; i < kept; i++) out[to + i] = idAt(from + i);
   return kept;
 }

@@ -83,7 +83,7 @@ export async function encodeCorpus(
   if (threads <= 1) {
     for await (const doc of documents) {
       const text = typeof doc === 'string' ? doc : doc.text;
-      await write(lexicon.idsOf(lexicon.tokenize(text)), typeof doc === 'string' ? undefined : doc.label);
+      await write(lexicon.encode(text, { shape: null }), typeof doc === 'string' ? undefined : doc.label);
     }
     return stats;
   }

@@ -81,7 +81,7 @@ export function batchHandler(setup: WorkerSetup, targets: LocalTargets = {}, ind
       batch.texts.forEach((text, i) => a.add(text, batch.labels[i] ?? undefined));
       return a !== targets.audit && a.tally.types >= KEPT_TYPES ? take(batch.id) : { id: batch.id, kept: true };
     }
-    return { id: batch.id, encoded: joinRows(batch.texts.map((text) => lex.idsOf(lex.tokenize(text)))) };
+    return { id: batch.id, encoded: joinRows(batch.texts.map((text) => lex.encode(text, { shape: null }))) };
   };
   return {
     handle: (batch) => safely(batch.id, () => handle(batch)),

@@ -2,7 +2,6 @@ import { describe, expect, it } from 'vitest';
 import { resolveRules } from '../../src/rules/TextRules.js';
 import { tokenize } from '../../src/rules/tokenize.js';
 import { splitAlien } from '../../src/rules/splitAlien.js';
-import { charTokens } from '../../src/rules/charTokens.js';
 
 describe('tokenize at the word level (defaults: NFKC, lower-case)', () => {
   // Expected tokens follow wink-tokenizer 5.3.0's documented behaviour (contractions split, times
@@ -48,7 +47,7 @@ describe('splitAlien (contract rule 2 regular expression)', () => {
 
 describe('character level', () => {
   it('keeps every non-white-space code point, astral ones whole', () => {
-    expect(charTokens('a b\u00a0c😀\n')).toEqual(['a', 'b', 'c', '😀']);
+    expect(tokenize('a b\u00a0c😀\n', resolveRules({ level: 'char', unicode: 'none', case: 'keep' }))).toEqual(['a', 'b', 'c', '😀']);
     expect(tokenize('Ab ﬁ', resolveRules({ level: 'char' }))).toEqual(['a', 'b', 'f', 'i']);
   });
 });

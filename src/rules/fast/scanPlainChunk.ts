@@ -1,3 +1,5 @@
+import { TYPE_CODE, type SpanSink } from '../TokenSpans.js';
+
 // Character classes for code units below 256 (anything above is "other").
 const OTHER = 0;
 const LETTER = 1;
@@ -36,6 +38,12 @@ const SLASH = 0x2f;
 const LESS_THAN = 0x3c;
 const THREE = 0x33;
 
+const WORD = TYPE_CODE.word;
+const NUMBER = TYPE_CODE.number;
+const PUNCTUATION = TYPE_CODE.punctuation;
+const SYMBOL_TYPE = TYPE_CODE.symbol;
+const CURRENCY_TYPE = TYPE_CODE.currency;
+
 function classAt(text: string, i: number): number {
   const code = text.charCodeAt(i);
   return code < 256 ? (CLASS[code] as number) : OTHER;
@@ -65,12 +73,14 @@ function mayStartSuffix(first: number, second: number): boolean {
  * marks (`punctuation`), `$ £ ¥` (`currency`) and `~ % ^ + = * | / < > &` (`symbol`). It stops at any
  * other character, at letters after a digit that could begin a time or an ordinal (`10am`, `2nd`), at
  * a `:`/`;` followed by anything but `, . ! ? " : ;`, a digit or white space (emoticons, `10:am`), and
- * at `<3`. Appends value/tag pairs to `raw` (values alone when `tagged` is false), in wink's order and
- * with wink's tags, and returns where it stopped: the chunk was plain only if that is its end (white
- * space, `end` or the end of the text); otherwise the caller must drop what was appended.
- * @example scanPlainChunk('(well-known), ok', 0, raw) // 13; raw gets '(', 'punctuation', 'well', 'word', '-', …
+ * at `<3`. Reports each token to `out` as a span (moved by `shift`: where `text` starts in the text the
+ * spans point into) with wink's tag, in wink's order, and returns where it stopped: the chunk was plain
+ * only if that is its end (white space, `end` or the end of the text); otherwise the caller must drop
+ * what was reported. Every decision is the same for A-Z as for a-z, so ASCII text may be scanned
+ * before it is lower-cased.
+ * @example scanPlainChunk('(well-known), ok', 0, out) // 13; out gets (0, 1, punctuation), (1, 5, word), (5, 6, punctuation), …
  */
-export function scanPlainChunk(text: string, start: number, raw: string[], tagged = true, end = text.length): number {
+export function scanPlainChunk(text: string, start: number, out: SpanSink, end = text.length, shift = 0): number {
   let i = start;
   while (i < end) {
     const kind = classAt(text, i);
@@ -78,8 +88,7 @@ export function scanPlainChunk(text: string, start: number, raw: string[], tagge
       if (i > start && classAt(text, i - 1) === DIGIT && i + 1 < end && mayStartSuffix(text.charCodeAt(i), text.charCodeAt(i + 1))) break;
       const from = i;
       for (i++; i < end && classAt(text, i) === LETTER; i++);
-      if (tagged) raw.push(text.slice(from, i), 'word');
-      else raw.push(text.slice(from, i));
+      out.span(from + shift, i + shift, WORD);
     } else if (kind === DIGIT) {
       const from = i;
       for (i++; i < end && classAt(text, i) === DIGIT; i++);
@@ -94,18 +103,15 @@ export function scanPlainChunk(text: string, start: number, raw: string[], tagge
           for (; i < end && classAt(text, i) === DIGIT; i++);
         }
       }
-      if (tagged) raw.push(text.slice(from, i), 'number');
-      else raw.push(text.slice(from, i));
+      out.span(from + shift, i + shift, NUMBER);
     } else if (kind === PUNCT) {
       const code = text.charCodeAt(i);
       if ((code === COLON || code === SEMICOLON) && i + 1 < end && AFTER_EMOTICON_START[text.charCodeAt(i + 1)] !== 1) break;
-      if (tagged) raw.push(text[i] as string, 'punctuation');
-      else raw.push(text[i] as string);
+      out.span(i + shift, i + shift + 1, PUNCTUATION);
       i++;
     } else if (kind === CURRENCY || kind === SYMBOL) {
       if (kind === SYMBOL && text.charCodeAt(i) === LESS_THAN && i + 1 < end && text.charCodeAt(i + 1) === THREE) break;
-      if (tagged) raw.push(text[i] as string, kind === SYMBOL ? 'symbol' : 'currency');
-      else raw.push(text[i] as string);
+      out.span(i + shift, i + shift + 1, kind === SYMBOL ? SYMBOL_TYPE : CURRENCY_TYPE);
       i++;
     } else break;
   }

