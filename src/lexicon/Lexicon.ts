@@ -7,7 +7,7 @@ import { tokenize } from '../rules/tokenize.js';
 import type { TextRules } from '../rules/TextRules.js';
 import { TokenSpans } from '../rules/TokenSpans.js';
 import type { LabelledText } from '../tally/Tally.js';
-import { shapeEach, shapeInto, type Shape } from './Shape.js';
+import { firstKept, keptOf, paddingBefore, shapeInto, type Shape } from './Shape.js';
 
 /** Id 0 is always padding. */
 export const PADDING_ID = 0;
@@ -173,19 +173,23 @@ export class Lexicon {
       return out;
     }
     const out = new Int32Array(shape.length);
-    shapeEach(count, shape, out, 0, this.idOfSpan);
+    // Only the kept tokens are looked up.
+    const kept = keptOf(count, shape);
+    const from = firstKept(count, shape);
+    const to = paddingBefore(kept, shape);
+    for (let i = 0; i < kept; i++) out[to + i] = this.idOfSpan(from + i);
     return out;
   }
 
-  /** The id of token `k` of the text encode scanned last, bound once so encode passes it without a new closure. */
-  private readonly idOfSpan = (k: number): number => {
+  /** The id of token `k` of the text encode scanned last. */
+  private idOfSpan(k: number): number {
     const start = spans.starts[k] as number;
     const number =
       start >= 0
         ? this.index.indexOfSpan(spans.text, start, spans.ends[k] as number, spans.folded)
         : this.index.indexOf(spans.strings[k] as string);
     return number < 0 ? this.oovId : number + this.firstTokenId;
-  };
+  }
 
   /**
    * Encodes many texts into one row-major batch. Without a shape (given or stored) every row is as

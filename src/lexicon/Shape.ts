@@ -24,24 +24,30 @@ export function checkShape(shape: Shape): Shape {
   return shape;
 }
 
+/** How many of `count` items a row of `shape` keeps. */
+export function keptOf(count: number, shape: Shape): number {
+  return count < shape.length ? count : shape.length;
+}
+
+/** The first of `count` items a row of `shape` keeps (the others cut are before it when `cut` is pre). */
+export function firstKept(count: number, shape: Shape): number {
+  return count > shape.length && shape.cut === 'pre' ? count - shape.length : 0;
+}
+
+/** How many padding ids come before `kept` items in a row of `shape`. */
+export function paddingBefore(kept: number, shape: Shape): number {
+  return shape.pad === 'pre' ? shape.length - kept : 0;
+}
+
 /**
  * Writes `ids` shaped into `out` at `offset` (which must hold `shape.length` zeroed slots) and
  * returns how many ids were kept: min(ids.length, shape.length).
  * @example shapeInto([5, 6, 7], { length: 2, pad: 'pre', cut: 'pre' }, out, 0) // out = [6, 7], returns 2
  */
 export function shapeInto(ids: ArrayLike<number>, shape: Shape, out: Int32Array, offset: number): number {
-  return shapeEach(ids.length, shape, out, offset, (k) => ids[k] ?? 0);
-}
-
-/**
- * The same for `count` items that `idAt(k)` turns into ids: only the kept items are asked for.
- * @example shapeEach(3, { length: 2, pad: 'pre', cut: 'post' }, out, 0, (k) => 10 + k) // out = [10, 11], returns 2
- */
-export function shapeEach(count: number, shape: Shape, out: Int32Array, offset: number, idAt: (k: number) => number): number {
-  const length = shape.length;
-  const kept = count < length ? count : length;
-  const from = count > length && shape.cut === 'pre' ? count - length : 0;
-  const to = offset + (shape.pad === 'pre' ? length - kept : 0);
-  for (let i = 0; i < kept; i++) out[to + i] = idAt(from + i);
+  const kept = keptOf(ids.length, shape);
+  const from = firstKept(ids.length, shape);
+  const to = offset + paddingBefore(kept, shape);
+  for (let i = 0; i < kept; i++) out[to + i] = ids[from + i] ?? 0;
   return kept;
 }

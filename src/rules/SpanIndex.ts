@@ -29,17 +29,6 @@ function hashSpan(text: string, from: number, to: number, folded: boolean): numb
   return h ^ (h >>> 16);
 }
 
-/** Whether `key` is `text[from, to)` (A-Z read as a-z when `folded`). */
-function sameAsSpan(key: string, text: string, from: number, to: number, folded: boolean): boolean {
-  if (key.length !== to - from) return false;
-  for (let k = 0; k < key.length; k++) {
-    let c = text.charCodeAt(from + k);
-    if (folded && c >= A && c <= Z) c += 32;
-    if (key.charCodeAt(k) !== c) return false;
-  }
-  return true;
-}
-
 /**
  * Strings numbered 0, 1, 2… in the order added, found by a span of any text (`text[from, to)`, also
  * read ASCII-lower-cased) without making a string of the span: how encode looks tokens up while
@@ -50,15 +39,20 @@ function sameAsSpan(key: string, text: string, from: number, to: number, folded:
  */
 export class SpanIndex {
   #keys: string[] = [];
+  /** Every key's UTF-16 code units, one after another: compared without going through the strings. */
+  #units = new Uint16Array(64);
+  #unitCount = 0;
+  /** Where each key's code units start in `#units` (entry + 1 holds where the next one starts). */
+  #starts = new Int32Array(MIN_SLOTS / 2 + 1);
   #hashes: Int32Array;
-  /** Entry number + 1 in each slot; 0 for an empty slot. */
+  /** Two numbers a slot: entry number + 1 (0 for an empty slot), then the entry's hash, so a probe reads one place. */
   #slots: Int32Array;
   #mask: number;
 
   /** @param keys strings to add in order (a repeated one keeps its first number). */
   constructor(keys: Iterable<string> = []) {
     this.#hashes = new Int32Array(MIN_SLOTS / 2);
-    this.#slots = new Int32Array(MIN_SLOTS);
+    this.#slots = new Int32Array(MIN_SLOTS * 2);
     this.#mask = MIN_SLOTS - 1;
     for (const key of keys) this.add(key);
   }
@@ -84,10 +78,27 @@ export class SpanIndex {
     const slots = this.#slots;
     const mask = this.#mask;
     for (let s = hash & mask; ; s = (s + 1) & mask) {
-      const entry = (slots[s] as number) - 1;
+      const entry = (slots[2 * s] as number) - 1;
       if (entry < 0) return -1;
-      if (this.#hashes[entry] === hash && sameAsSpan(this.#keys[entry] as string, text, from, to, folded)) return entry;
+      if (slots[2 * s + 1] === hash && this.#sameAsSpan(entry, text, from, to, folded)) return entry;
     }
+  }
+
+  /** Whether key `entry` is `text[from, to)` (A-Z read as a-z when `folded`). */
+  #sameAsSpan(entry: number, text: string, from: number, to: number, folded: boolean): boolean {
+    const start = this.#starts[entry] as number;
+    const length = to - from;
+    if ((this.#starts[entry + 1] as number) - start !== length) return false;
+    const units = this.#units;
+    if (folded) {
+      for (let k = 0; k < length; k++) {
+        const c = text.charCodeAt(from + k);
+        if (units[start + k] !== (c >= A && c <= Z ? c + 32 : c)) return false;
+      }
+    } else {
+      for (let k = 0; k < length; k++) if (units[start + k] !== text.charCodeAt(from + k)) return false;
+    }
+    return true;
   }
 
   /** Adds `key` and returns its number; a key already held keeps its number (and `size` stays). */
@@ -99,10 +110,19 @@ export class SpanIndex {
     if (entry === this.#hashes.length) this.#grow();
     const mask = this.#mask;
     let s = hash & mask;
-    while (this.#slots[s] !== 0) s = (s + 1) & mask;
-    this.#slots[s] = entry + 1;
+    while (this.#slots[2 * s] !== 0) s = (s + 1) & mask;
+    this.#slots[2 * s] = entry + 1;
+    this.#slots[2 * s + 1] = hash;
     this.#hashes[entry] = hash;
     this.#keys.push(key);
+    if (this.#unitCount + key.length > this.#units.length) {
+      const units = new Uint16Array(Math.max(this.#units.length * 2, this.#unitCount + key.length));
+      units.set(this.#units);
+      this.#units = units;
+    }
+    for (let k = 0; k < key.length; k++) this.#units[this.#unitCount + k] = key.charCodeAt(k);
+    this.#unitCount += key.length;
+    this.#starts[entry + 1] = this.#unitCount;
     return entry;
   }
 
@@ -110,34 +130,43 @@ export class SpanIndex {
   #find(hash: number, key: string): number {
     const mask = this.#mask;
     for (let s = hash & mask; ; s = (s + 1) & mask) {
-      const entry = (this.#slots[s] as number) - 1;
+      const entry = (this.#slots[2 * s] as number) - 1;
       if (entry < 0) return -1;
-      if (this.#hashes[entry] === hash && this.#keys[entry] === key) return entry;
+      if (this.#slots[2 * s + 1] === hash && this.#keys[entry] === key) return entry;
     }
   }
 
   /** Forgets every string (numbering starts again at 0). */
   clear(): void {
     this.#keys = [];
+    this.#units = new Uint16Array(64);
+    this.#unitCount = 0;
+    this.#starts = new Int32Array(MIN_SLOTS / 2 + 1);
     this.#hashes = new Int32Array(MIN_SLOTS / 2);
-    this.#slots = new Int32Array(MIN_SLOTS);
+    this.#slots = new Int32Array(MIN_SLOTS * 2);
     this.#mask = MIN_SLOTS - 1;
   }
 
   /** Doubles the slot table and the room for entries (half of it), and puts every entry back. */
   #grow(): void {
-    const slots = new Int32Array(this.#slots.length * 2);
-    const hashes = new Int32Array(slots.length / 2);
+    const slotCount = (this.#mask + 1) * 2;
+    const slots = new Int32Array(slotCount * 2);
+    const hashes = new Int32Array(slotCount / 2);
     hashes.set(this.#hashes);
-    const mask = slots.length - 1;
+    const starts = new Int32Array(hashes.length + 1);
+    starts.set(this.#starts);
+    const mask = slotCount - 1;
     const n = this.#keys.length;
     for (let entry = 0; entry < n; entry++) {
-      let s = (hashes[entry] as number) & mask;
-      while (slots[s] !== 0) s = (s + 1) & mask;
-      slots[s] = entry + 1;
+      const hash = hashes[entry] as number;
+      let s = hash & mask;
+      while (slots[2 * s] !== 0) s = (s + 1) & mask;
+      slots[2 * s] = entry + 1;
+      slots[2 * s + 1] = hash;
     }
     this.#slots = slots;
     this.#hashes = hashes;
+    this.#starts = starts;
     this.#mask = mask;
   }
 }

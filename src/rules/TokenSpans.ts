@@ -69,9 +69,11 @@ export class TokenSpans implements SpanSink {
         return;
       }
     }
-    const k = this.#room();
+    const k = this.count;
+    if (k === this.starts.length) this.#grow();
     this.starts[k] = from;
     this.ends[k] = to;
+    this.count = k + 1;
   }
 
   /**
@@ -138,22 +140,33 @@ export class TokenSpans implements SpanSink {
   /** Every token as a string, in order. */
   toArray(): string[] {
     const out: string[] = [];
-    for (let k = 0; k < this.count; k++) out.push(this.tokenAt(k));
+    if (this.folded) {
+      for (let k = 0; k < this.count; k++) out.push(this.tokenAt(k));
+      return out;
+    }
+    const { text, starts, ends, strings, count } = this;
+    for (let k = 0; k < count; k++) {
+      const start = starts[k] as number;
+      out.push(start < 0 ? (strings[k] as string) : text.slice(start, ends[k]));
+    }
     return out;
   }
 
   /** The index of a new token, growing the buffers when they are full. */
   #room(): number {
     const k = this.count;
-    if (k === this.starts.length) {
-      const starts = new Int32Array(k * 2);
-      const ends = new Int32Array(k * 2);
-      starts.set(this.starts);
-      ends.set(this.ends);
-      this.starts = starts;
-      this.ends = ends;
-    }
+    if (k === this.starts.length) this.#grow();
     this.count = k + 1;
     return k;
+  }
+
+  /** Doubles the room for tokens. */
+  #grow(): void {
+    const starts = new Int32Array(this.starts.length * 2);
+    const ends = new Int32Array(this.starts.length * 2);
+    starts.set(this.starts);
+    ends.set(this.ends);
+    this.starts = starts;
+    this.ends = ends;
   }
 }

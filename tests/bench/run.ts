@@ -166,6 +166,7 @@ async function main(): Promise<void> {
     out.push(`Serving, lexicon of ${f('tokens')} tokens (${fixed(latency.maxRssKiB / 1024, 0)} MiB peak RSS):`);
     out.push(`  load: parseLexicon ${fixed(f('parseMs'))} ms, loadLexicon ${fixed(f('loadMs'))} ms (median of 12)`);
     out.push(`  encode one 50-word text: p50 ${fixed(f('p50Micros'))} µs, p99 ${fixed(f('p99Micros'))} µs (20,000 calls after 5,000 warm-up)`);
+    out.push(`  heap allocated by one encode: ${fixed(f('encodeHeapBytes'), 0)} bytes (its Int32Array alone: ${fixed(f('outputHeapBytes'), 0)} bytes)`);
     process.stdout.write(`${out.join('\n')}\n`);
   } finally {
     await rm(scratch, { recursive: true, force: true });

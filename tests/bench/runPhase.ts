@@ -12,6 +12,7 @@ import {
   tokenize,
   type CorpusOptions,
 } from 'lexlock/node';
+import { allocatedBytes } from '../helpers/allocatedBytes.js';
 import { baselineTexts } from './baselineTexts.js';
 import type { PhaseResult, PhaseSpec } from './PhaseSpec.js';
 import { percentile } from './percentile.js';
@@ -119,6 +120,7 @@ async function measureLatency(spec: PhaseSpec): Promise<Measured> {
     sum += ids[ids.length - 1] ?? 0;
   }
   const sorted = micros.sort();
+  const length = lexicon.shape?.length ?? lexicon.encode(text).length;
   return {
     seconds: 0,
     figures: {
@@ -128,6 +130,9 @@ async function measureLatency(spec: PhaseSpec): Promise<Measured> {
       p50Micros: percentile(sorted, 50),
       p99Micros: percentile(sorted, 99),
       checksum: sum,
+      // V8 heap one encode allocates, next to what allocating its output alone does (tests/helpers/allocatedBytes.ts).
+      encodeHeapBytes: allocatedBytes(() => lexicon.encode(text)),
+      outputHeapBytes: allocatedBytes(() => new Int32Array(length)),
     },
   };
 }
