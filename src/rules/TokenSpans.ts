@@ -6,7 +6,7 @@ export const TYPE_CODE = Object.fromEntries(TOKEN_TYPES.map((type, code) => [typ
 
 const CODE_OF_TAG = new Map<string, number>(TOKEN_TYPES.map((type, code) => [type, code]));
 const PLACEHOLDERS: readonly string[] = TOKEN_TYPES.map(placeholderOf);
-const ALIEN = TYPE_CODE.alien;
+const ALIEN: TokenType = 'alien';
 
 /** What the scanners report tokens to: `text[from, to)` of the scanned text is a token of `type` (a {@link TYPE_CODE}). */
 export interface SpanSink {
@@ -40,6 +40,15 @@ export class TokenSpans implements SpanSink {
   strings: string[] = [];
   #tagged = false;
   readonly #action = new Uint8Array(TOKEN_TYPES.length);
+  readonly #makeStrings: boolean;
+
+  /**
+   * @param makeStrings make each span's string as it is added, for callers that want every token as a
+   * string anyway (tokenize): one step instead of spans first and strings after.
+   */
+  constructor(makeStrings = false) {
+    this.#makeStrings = makeStrings;
+  }
 
   /** Empties the buffer for a new scan of `text` under `rules`' drop and collapse. */
   begin(text: string, folded: boolean, rules: Pick<TextRules, 'drop' | 'collapse'>): void {
@@ -71,8 +80,14 @@ export class TokenSpans implements SpanSink {
     }
     const k = this.count;
     if (k === this.starts.length) this.#grow();
-    this.starts[k] = from;
-    this.ends[k] = to;
+    if (this.#makeStrings) {
+      const token = this.text.slice(from, to);
+      this.starts[k] = -1;
+      this.strings[k] = this.folded ? token.toLowerCase() : token;
+    } else {
+      this.starts[k] = from;
+      this.ends[k] = to;
+    }
     this.count = k + 1;
   }
 
@@ -82,16 +97,16 @@ export class TokenSpans implements SpanSink {
    */
   pair(value: string, tag: string): void {
     if (value === '') return;
-    const type = CODE_OF_TAG.get(tag) ?? -1;
-    if (this.#tagged && type >= 0) {
-      const action = this.#action[type];
+    if (this.#tagged) {
+      const type = CODE_OF_TAG.get(tag) ?? -1;
+      const action = type >= 0 ? this.#action[type] : KEEP;
       if (action === DROP) return;
       if (action === COLLAPSE) {
         this.addString(PLACEHOLDERS[type] as string);
         return;
       }
     }
-    if (type === ALIEN) for (const piece of splitAlien(value, [])) this.addString(piece);
+    if (tag === ALIEN) for (const piece of splitAlien(value, [])) this.addString(piece);
     else this.addString(value);
   }
 
@@ -139,6 +154,7 @@ export class TokenSpans implements SpanSink {
 
   /** Every token as a string, in order. */
   toArray(): string[] {
+    if (this.#makeStrings) return this.strings.slice(0, this.count);
     const out: string[] = [];
     if (this.folded) {
       for (let k = 0; k < this.count; k++) out.push(this.tokenAt(k));

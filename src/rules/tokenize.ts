@@ -2,7 +2,7 @@ import { scanTokens } from './scanTokens.js';
 import type { TextRules } from './TextRules.js';
 import { TokenSpans } from './TokenSpans.js';
 
-const spans = new TokenSpans();
+const spans = new TokenSpans(true);
 
 /**
  * Turns one text into its tokens under the given rules: normalize, lower-case, tokenize

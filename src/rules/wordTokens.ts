@@ -5,7 +5,7 @@ import { TokenSpans } from './TokenSpans.js';
 
 // One tokenizer instance with default settings; wink keeps no state between calls that affects results.
 const wink = winkTokenizer();
-const spans = new TokenSpans();
+const spans = new TokenSpans(true);
 
 /**
  * The word level by definition (encoding contract, rule 2), of already-normalized text: wink-tokenizer

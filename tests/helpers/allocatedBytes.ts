@@ -10,7 +10,7 @@ const kept: unknown[] = new Array<unknown>(16).fill(null);
  * compiler has settled. Off-heap backing stores of large typed arrays are not counted here; each
  * typed array still shows as its on-heap objects.
  */
-export function allocatedBytes(fn: () => unknown, { calls = 1_000, tries = 9, warmUp = 20_000 } = {}): number {
+export function allocatedBytes(fn: () => unknown, { calls = 1_000, tries = 15, warmUp = 30_000 } = {}): number {
   for (let i = 0; i < warmUp; i++) kept[i & 15] = fn();
   let least = Number.POSITIVE_INFINITY;
   for (let t = 0; t < tries; t++) {

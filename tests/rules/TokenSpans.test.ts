@@ -58,3 +58,23 @@ describe('TokenSpans', () => {
     expect(spans.starts.length).toBeLessThan(1_000);
   });
 });
+
+describe('TokenSpans that make strings as they go', () => {
+  it('gives the same tokens as spans made strings after', () => {
+    const rules = resolveRules({ collapse: ['number'] });
+    const made = (makeStrings: boolean, folded: boolean): string[] => {
+      const spans = new TokenSpans(makeStrings);
+      spans.begin('The FERRY 12 x', folded, rules);
+      spans.span(0, 3, TYPE_CODE.word);
+      spans.holdGroup(0);
+      spans.span(10, 12, TYPE_CODE.number);
+      spans.span(13, 14, TYPE_CODE.word);
+      spans.fillGroups([['ferry', 'word']]);
+      return spans.toArray();
+    };
+    expect(made(true, true)).toEqual(['the', 'ferry', '<number>', 'x']);
+    expect(made(false, true)).toEqual(made(true, true));
+    expect(made(true, false)).toEqual(['The', 'ferry', '<number>', 'x']);
+    expect(made(false, false)).toEqual(made(true, false));
+  });
+});
