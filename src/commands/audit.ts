@@ -31,7 +31,7 @@ per label, the caps and lengths that would cover 90/95/99 %, the most frequent O
   --level, --case, --unicode, --drop, --collapse   with --cap: text rules as in lexlock build
   --length L            count truncation and padding at length L (default: the lexicon's shape)
   --pad pre|post, --cut pre|post   with --length (default post)
-  --text FIELD, --label FIELD, --bad-text fail|replace|skip   as in lexlock build
+  --text FIELD, --label FIELD, --bad-text fail|replace|skip, --record-limit MiB   as in lexlock build
   --json                print the report as one JSON object
   --report FILE.html    also write a self-contained HTML page with the charts (--force to overwrite)
   --max-oov R           exit 3 when the OOV rate is above R (a share such as 0.05, or 5%)

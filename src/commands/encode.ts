@@ -22,6 +22,7 @@ Turns every document into ids with a lexicon, in corpus order.
   --text FIELD          text column or member (default: as the lexicon was built, else text)
   --label FIELD         label column or member (default: as the lexicon was built)
   --bad-text fail|replace|skip   what to do with invalid UTF-8 (default fail)
+  --record-limit MiB    refuse any one line, CSV record or folder file larger than this (default 64, at most 256)
   --force               overwrite existing output
   --threads N           worker threads (default: the machine's cores from 8 MiB of corpus); the output is the same for any N
   -q, --quiet           no progress on stderr

@@ -3,6 +3,7 @@ import type { Shape } from '../lexicon/Shape.js';
 import { LexlockError } from '../LexlockError.js';
 import { hasFields, type CorpusKind } from '../corpus/corpusKind.js';
 import { readCorpus } from '../corpus/readCorpus.js';
+import { RECORD_LIMIT_MOST } from '../corpus/recordLimit.js';
 import type { CorpusStats } from '../corpus/CorpusStats.js';
 import type { Lexicon } from '../lexicon/Lexicon.js';
 import { defaultThreads } from '../workers/WorkerPool.js';
@@ -13,6 +14,7 @@ export const CORPUS_FLAGS: Record<string, FlagSpec> = {
   text: { kind: 'value' },
   label: { kind: 'value' },
   'bad-text': { kind: 'value' },
+  'record-limit': { kind: 'value' },
   quiet: { kind: 'switch', short: 'q' },
   threads: { kind: 'value' },
 };
@@ -51,11 +53,25 @@ export function corpusOptions(args: ParsedArgs, defaults: { text?: string | unde
   const badText = choiceFlag(args, 'bad-text', ['fail', 'replace', 'skip'] as const) ?? 'fail';
   const text = valueOf(args, 'text') ?? defaults.text;
   const label = valueOf(args, 'label') ?? defaults.label;
+  const recordLimit = recordLimitFlag(args);
   return {
     badText,
     ...(text === undefined ? {} : { text }),
     ...(label === undefined ? {} : { label }),
+    ...(recordLimit === undefined ? {} : { maxRecordBytes: recordLimit }),
   };
+}
+
+const MIB = 2 ** 20;
+
+/** --record-limit MiB as bytes (1 to 256 MiB), or undefined for the reader's default (64 MiB). */
+function recordLimitFlag(args: ParsedArgs): number | undefined {
+  const mib = wholeNumberFlag(args, 'record-limit', 1);
+  if (mib === undefined) return undefined;
+  if (mib * MIB > RECORD_LIMIT_MOST) {
+    throw new LexlockError('USAGE_BAD_VALUE', `--record-limit: ${mib} MiB is more than the ${RECORD_LIMIT_MOST / MIB} MiB a record may have; give at most ${RECORD_LIMIT_MOST / MIB}`, { field: '--record-limit' });
+  }
+  return mib * MIB;
 }
 
 function typesFlag(args: ParsedArgs, name: string): Array<(typeof TOKEN_TYPES)[number]> {

@@ -25,6 +25,7 @@ Counts one part of a corpus and writes a tally file that lexlock merge adds up a
   --text FIELD          text column or member for .csv/.tsv/.jsonl (default text)
   --label FIELD         label column or member (folders: the first folder is the label)
   --bad-text fail|replace|skip   what to do with invalid UTF-8 (default fail)
+  --record-limit MiB    refuse any one line, CSV record or folder file larger than this (default 64, at most 256)
   --force               overwrite an existing tally file
   -q, --quiet           no progress on stderr
 Every part must be counted with the same rule flags, or merge refuses them.

@@ -12,6 +12,8 @@ export interface ReadContext {
   readonly badText: BadTextPolicy;
   /** Bytes per read. */
   readonly chunkSize: number;
+  /** Most bytes of one record: a line (.txt/.jsonl), a record (.csv/.tsv), a file (folder). */
+  readonly maxRecordBytes: number;
   /** Counters, updated as the reader goes. */
   readonly stats: CorpusStats;
   /**

@@ -1,6 +1,7 @@
 import { inputError } from '../LexlockError.js';
 import { skipCsvWhitespace } from './csvWhitespace.js';
 import type { Line } from './lines.js';
+import { recordTooLong } from './recordLimit.js';
 
 /** One CSV/TSV record as bytes (line breaks inside quoted fields included, the record's own line end not), and where it starts. */
 export interface CsvRecord {
@@ -22,24 +23,34 @@ const LF_BYTE = Buffer.from([0x0a]);
  * quotes `""` is a quote and line breaks belong to the field; after the closing quote only white
  * space may come before the delimiter or the record's end. A record ends at LF, CRLF or a lone CR
  * outside quotes. Records that are empty or white space only are left out (fast-csv would give them
- * no fields). Bytes are looped over only in lines that hold a quote or a lone CR.
+ * no fields). Bytes are looped over only in lines that hold a quote or a lone CR. A record that goes
+ * on over lines past `maxRecordBytes` is refused (`RECORD_TOO_LARGE`) as soon as the lines held of it
+ * are more than that, before they are put together; a record inside one line is never longer than
+ * the line, which the line splitter bounds.
  */
 export class CsvRecordScanner {
   readonly #file: string;
   readonly #delimiter: number;
+  readonly #maxRecordBytes: number;
   /** Lines of a record that is still open (inside quotes at a line end). */
   #pieces: Buffer[] = [];
+  /** Bytes of the open record so far: its pieces and the line feed after each. */
+  #held = 0;
   #line = 0;
   #byteOffset = 0;
   #quoteLine = 0;
   #quoteOffset = 0;
 
-  constructor(file: string, delimiter: ',' | '\t') {
+  constructor(file: string, delimiter: ',' | '\t', maxRecordBytes = Number.POSITIVE_INFINITY) {
     this.#file = file;
     this.#delimiter = delimiter.charCodeAt(0);
+    this.#maxRecordBytes = maxRecordBytes;
   }
 
-  /** Scans one line and appends the records it completes to `out`. Throws `CSV_BAD_QUOTE` for text after a closing quote. */
+  /**
+   * Scans one line and appends the records it completes to `out`. Throws `CSV_BAD_QUOTE` for text
+   * after a closing quote, `RECORD_TOO_LARGE` for an open record that has grown past the limit.
+   */
   push(line: Line, out: CsvRecord[]): void {
     const b = line.bytes;
     const len = b.length;
@@ -66,6 +77,8 @@ export class CsvRecordScanner {
             this.#byteOffset = line.byteOffset + start;
           }
           this.#pieces.push(b.subarray(start));
+          this.#held += len - start + 1;
+          if (this.#held > this.#maxRecordBytes) throw this.#tooLong();
           return;
         }
         if (q + 1 < len && b[q + 1] === QUOTE) {
@@ -118,6 +131,7 @@ export class CsvRecordScanner {
   end(): void {
     if (this.#pieces.length === 0) return;
     this.#pieces = [];
+    this.#held = 0;
     throw inputError(
       'CSV_UNCLOSED_QUOTE',
       { file: this.#file, line: this.#quoteLine, byteOffset: this.#quoteOffset },
@@ -130,11 +144,20 @@ export class CsvRecordScanner {
       this.#emit(b.subarray(start, end), line.line, line.byteOffset + start, out);
       return;
     }
+    if (this.#held + end > this.#maxRecordBytes) throw this.#tooLong();
     const parts: Buffer[] = [];
     for (const piece of this.#pieces) parts.push(piece, LF_BYTE);
     parts.push(b.subarray(0, end));
     this.#pieces = [];
+    this.#held = 0;
     this.#emit(Buffer.concat(parts), this.#line, this.#byteOffset, out);
+  }
+
+  /** The `RECORD_TOO_LARGE` error for the open record; drops what is held of it. */
+  #tooLong() {
+    this.#pieces = [];
+    this.#held = 0;
+    return recordTooLong({ file: this.#file, line: this.#line, byteOffset: this.#byteOffset }, this.#maxRecordBytes, this.#quoteOffset);
   }
 
   #emit(bytes: Buffer, line: number, byteOffset: number, out: CsvRecord[]): void {

@@ -11,6 +11,7 @@ import { readError } from './readError.js';
 import { readFolder } from './readFolder.js';
 import { readJsonl } from './readJsonl.js';
 import { readTxt } from './readTxt.js';
+import { RECORD_LIMIT_DEFAULT, RECORD_LIMIT_MOST } from './recordLimit.js';
 
 export type { CorpusDocument } from './CorpusDocument.js';
 export type { CorpusStats } from './CorpusStats.js';
@@ -29,6 +30,13 @@ export interface CorpusOptions {
   onProgress?: (p: { bytes: number; documents: number }) => void;
   /** Bytes per read; default 1 MiB. Memory per reader stays near this, whatever the file's size. */
   chunkSize?: number;
+  /**
+   * Most bytes of one record (a line of .txt/.jsonl without its line end, a record of .csv/.tsv, a
+   * file of a folder); default 64 MiB, at most 256 MiB. A longer one stops the read with
+   * `RECORD_TOO_LARGE` naming the file and the line it starts on, before it is gathered into memory,
+   * so a file without line breaks or with a quote left open cannot take all memory.
+   */
+  maxRecordBytes?: number;
 }
 
 /**
@@ -48,7 +56,9 @@ const POLICIES: readonly string[] = ['fail', 'replace', 'skip'];
 /**
  * Opens a corpus (encoding contract, rule 7): `.csv`, `.tsv`, `.jsonl`/`.ndjson`, `.txt`, or a folder
  * with one document per file. Checks the path and options now (`CORPUS_NOT_FOUND`, `CORPUS_KIND`,
- * `BAD_OPTION`); reads nothing until iterated. A corpus with no documents throws `EMPTY_CORPUS` at the end.
+ * `BAD_OPTION`); reads nothing until iterated. A corpus with no documents throws `EMPTY_CORPUS` at the
+ * end; every other problem of the input is a `LexlockError` too, whose `where` names the file (and
+ * the line where there is one).
  * @example
  * for await (const { text, label } of readCorpus('reviews.csv', { label: 'stars' })) tally.add({ text, label });
  */
@@ -76,6 +86,10 @@ export function readCorpus(path: string, options: CorpusOptions = {}): CorpusRea
   if (!Number.isSafeInteger(chunkSize) || chunkSize < 1) {
     throw inputError('BAD_OPTION', { file: path }, `chunk size ${chunkSize} is not a whole number of bytes above 0`);
   }
+  const maxRecordBytes = options.maxRecordBytes ?? RECORD_LIMIT_DEFAULT;
+  if (!Number.isSafeInteger(maxRecordBytes) || maxRecordBytes < 1 || maxRecordBytes > RECORD_LIMIT_MOST) {
+    throw inputError('BAD_OPTION', { file: path }, `record limit ${maxRecordBytes} is not a whole number of bytes from 1 to ${RECORD_LIMIT_MOST} (256 MiB)`);
+  }
   const stats: CorpusStats = { documents: 0, replaced: 0, skipped: 0, bytes: 0 };
   const { onProgress } = options;
   return {
@@ -93,6 +107,7 @@ export function readCorpus(path: string, options: CorpusOptions = {}): CorpusRea
         label: options.label,
         badText,
         chunkSize,
+        maxRecordBytes,
         stats,
         empty: { reason: 'nothing was read', advice: 'check the path' },
       };

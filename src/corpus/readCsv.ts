@@ -17,11 +17,13 @@ const START_ADVICE = 'start it with a header row naming the columns, then put on
  * bytes on the bytes; fast-csv splits the fields. Row numbers count data records (the header is row
  * 0; blank lines are not rows; rows skipped for bad bytes still count). Yields one batch of documents
  * per group of lines read (about 64 KiB); when something is wrong, the documents before it come first.
+ * A line, or a record over several lines, of more than `context.maxRecordBytes` is `RECORD_TOO_LARGE`
+ * (lines are split on LF, so a file whose records end in lone CRs is one line and must fit the limit).
  */
 export async function* readCsv(context: ReadContext, delimiter: ',' | '\t'): AsyncGenerator<CorpusDocument[], void, undefined> {
   const { file } = context;
   context.empty = { reason: 'the file is empty', advice: START_ADVICE };
-  const scanner = new CsvRecordScanner(file, delimiter);
+  const scanner = new CsvRecordScanner(file, delimiter, context.maxRecordBytes);
   const fields = new CsvFieldParser(delimiter);
   let headerSeen = false;
   let columns: CsvColumns | null = null;
@@ -94,7 +96,8 @@ export async function* readCsv(context: ReadContext, delimiter: ',' | '\t'): Asy
   }
 
   try {
-    for await (const lines of readLines(fileChunks(file, context.chunkSize, context.stats))) {
+    const limit = { maxBytes: context.maxRecordBytes, file };
+    for await (const lines of readLines(fileChunks(file, context.chunkSize, context.stats), limit)) {
       const records: CsvRecord[] = [];
       let scanFailure: unknown = null;
       try {

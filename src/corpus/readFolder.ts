@@ -8,7 +8,8 @@ import { utf8BomLength } from './utf8Bom.js';
 /**
  * A folder corpus: every regular, non-hidden file below the folder is one document, in JavaScript
  * string order of its relative path (see {@link listFolder}); its label is the first folder under the
- * root (files right in the root have none). A file's BOM is dropped; bad bytes follow the policy.
+ * root (files right in the root have none). A file's BOM is dropped; bad bytes follow the policy; a
+ * file of more than `context.maxRecordBytes` is `RECORD_TOO_LARGE`.
  */
 export async function* readFolder(context: ReadContext): AsyncGenerator<CorpusDocument[], void, undefined> {
   context.empty = {
@@ -16,7 +17,7 @@ export async function* readFolder(context: ReadContext): AsyncGenerator<CorpusDo
     advice: 'put one document in each file, in subfolders named after the labels if there are labels',
   };
   const paths = await listFolder(context.file);
-  for await (const read of folderFiles(context.file, paths)) {
+  for await (const read of folderFiles(context.file, paths, undefined, context.maxRecordBytes)) {
     const { relative, file } = read;
     let bytes = read.bytes;
     context.stats.bytes += bytes.length;

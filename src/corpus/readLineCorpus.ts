@@ -20,12 +20,13 @@ export interface LineCorpus {
 /**
  * Reads a corpus of one document a line (`.txt`, `.jsonl`): drops each line's CR, passes over blank
  * lines, decodes under the bad-text policy and yields one batch per group of lines (about 64 KiB).
- * When a line is wrong, the documents before it come first.
+ * When a line is wrong (or longer than `context.maxRecordBytes`), the documents before it come first.
  */
 export async function* readLineCorpus(context: ReadContext, kind: LineCorpus): AsyncGenerator<CorpusDocument[], void, undefined> {
   const { file } = context;
   context.empty = { reason: kind.reason, advice: kind.advice };
-  for await (const lines of readLines(fileChunks(file, context.chunkSize, context.stats))) {
+  const limit = { maxBytes: context.maxRecordBytes, file };
+  for await (const lines of readLines(fileChunks(file, context.chunkSize, context.stats), limit)) {
     const batch: CorpusDocument[] = [];
     try {
       for (const line of lines) {
