@@ -9,8 +9,22 @@ import type { Io } from './commands/Io.js';
 import { verify, VERIFY_HELP } from './commands/verify.js';
 import { VERSION } from './version.js';
 
-/** Exit codes of the CLI. */
-export const EXIT = { ok: 0, badInput: 1, usage: 2, threshold: 3, interrupted: 130 } as const;
+/** Exit codes of the CLI; `interrupted` (SIGINT) and `terminated` (SIGTERM) are 128 + the signal's number (common practice). */
+export const EXIT = { ok: 0, badInput: 1, usage: 2, threshold: 3, interrupted: 130, terminated: 143 } as const;
+
+/** The signals the executable stops on, removing its temporary files. */
+export type StopSignal = 'SIGINT' | 'SIGTERM';
+
+/**
+ * The one line the executable prints on stderr when a signal stops a command: the outputs whose
+ * temporary files it removed (none of them was written), or that no file was being written.
+ * @example interruptedLine('SIGINT', ['lex.json'], []) // 'lexlock: interrupted (SIGINT); nothing was written to lex.json\n'
+ */
+export function interruptedLine(signal: StopSignal, untouched: readonly string[], notRemoved: readonly string[]): string {
+  const what = untouched.length === 0 ? 'no file was being written' : `nothing was written to ${untouched.join(', ')}`;
+  const left = notRemoved.length === 0 ? '' : `; could not remove ${notRemoved.join(', ')}: delete ${notRemoved.length === 1 ? 'it' : 'them'} by hand`;
+  return `lexlock: interrupted (${signal}); ${what}${left}\n`;
+}
 
 const COMMANDS: Record<string, { run: (argv: readonly string[], io: Io) => Promise<number>; help: string }> = {
   build: { run: build, help: BUILD_HELP },
@@ -39,7 +53,8 @@ Run lexlock <command> --help for a command's flags.
 
 /**
  * Runs the CLI on `argv` (without the node and script names) and returns the exit code:
- * 0 ok, 1 bad input, 2 bad usage, 3 audit threshold crossed. Errors are printed as one line.
+ * 0 ok, 1 bad input, 2 bad usage, 3 audit threshold crossed (130 and 143 come from the executable,
+ * when a signal stops it: src/bin.ts). Errors are printed as one line.
  * @example const code = await run(['verify', 'lexicon.json'], { stdout: process.stdout, stderr: process.stderr, env: process.env });
  */
 export async function run(argv: readonly string[], io: Io): Promise<number> {

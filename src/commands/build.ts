@@ -1,4 +1,3 @@
-import { basename, dirname, join } from 'node:path';
 import { freeze } from '../lexicon/freeze.js';
 import type { Lexicon } from '../lexicon/Lexicon.js';
 import type { EncodeStats } from '../pipeline/encodeCorpus.js';
@@ -20,6 +19,7 @@ import { parseArgs, positionals, valueOf, wholeNumberFlag, type ParsedArgs } fro
 import { corpusBytes } from './corpusBytes.js';
 import { createProgress } from './progress.js';
 import { CORPUS_FLAGS, RULE_FLAGS, SHAPE_FLAGS, corpusOptions, rulesFromFlags, shapeFromFlags, threadsFlag, badTextNotes, corpusFields } from './sharedFlags.js';
+import { spillPathFor } from '../files/tempNames.js';
 
 /** `lexlock build --help`. */
 export const BUILD_HELP = `lexlock build <corpus | all.tally> -o <lexicon.json> [options]
@@ -41,6 +41,7 @@ lexlock tally or merge) it freezes those counts instead; the rule and corpus fla
   --text FIELD          text column or member for .csv/.tsv/.jsonl (default text)
   --label FIELD         label column or member (folders: the first folder is the label)
   --bad-text fail|replace|skip   what to do with invalid UTF-8 (default fail)
+  --record-limit MiB    refuse any one line, CSV record or folder file larger than this (default 64, at most 256)
   --force               overwrite an existing lexicon file
   --threads N           worker threads (default: the machine's cores from 8 MiB of corpus); the lexicon is the same for any N
   --memory-limit MiB    count in bounded memory (two passes; still exact, or refused with the budget needed)
@@ -159,11 +160,6 @@ export async function build(argv: readonly string[], io: Io): Promise<number> {
   return 0;
 }
 
-/** Where a build that also encodes keeps its token numbers: a hidden file beside the lexicon. */
-function spillPathFor(output: string): string {
-  return join(dirname(output), `.${basename(output)}.${process.pid}.numbers.tmp`);
-}
-
 /** Refuses what `--encode` cannot go with: a tally input, bounded memory, .npy without a length. */
 function refuseWithEncode(args: ParsedArgs, fromTally: boolean, encodeTo: string, hasShape: boolean): void {
   if (fromTally) {
@@ -189,7 +185,7 @@ function refuseCorpusFlags(values: ReadonlyMap<string, string[]>): void {
       throw new LexlockError('USAGE_BAD_VALUE', `--${name} cannot be used with a tally: the tally fixes the rules it was counted under; leave it out, or count the parts again with lexlock tally --${name}`, { field: `--${name}` });
     }
   }
-  for (const name of ['text', 'label', 'bad-text']) {
+  for (const name of ['text', 'label', 'bad-text', 'record-limit']) {
     if (values.has(name)) {
       throw new LexlockError('USAGE_BAD_VALUE', `--${name} cannot be used with a tally: its corpus was read when it was counted; leave it out, or pass it to lexlock tally`, { field: `--${name}` });
     }

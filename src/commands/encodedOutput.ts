@@ -4,6 +4,8 @@ import { LexlockError } from '../LexlockError.js';
 import type { CorpusStats } from '../corpus/CorpusStats.js';
 import { writeFileAtomic } from '../files/atomicWrite.js';
 import { assertWritable } from '../files/refuseOverwrite.js';
+import { assertNotSymlink } from '../files/refuseSymlink.js';
+import { removeStaleTemps } from '../files/removeStaleTemps.js';
 import type { Lexicon } from '../lexicon/Lexicon.js';
 import type { Shape } from '../lexicon/Shape.js';
 import { JsonlWriter } from '../output/JsonlWriter.js';
@@ -36,6 +38,12 @@ export async function assertOutputWritable(output: string, force: boolean): Prom
   if (isJsonl(output)) {
     await assertWritable(output, force);
     return;
+  }
+  // The folder's own files: none may be a link, and a killed run's temporary files go first, so a
+  // folder holding nothing else counts as empty.
+  for (const name of ['ids.npy', 'lengths.npy', 'labels.npy', 'manifest.json']) {
+    await assertNotSymlink(join(output, name));
+    await removeStaleTemps(join(output, name));
   }
   let entries: string[];
   try {

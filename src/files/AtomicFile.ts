@@ -1,8 +1,11 @@
-import { randomBytes } from 'node:crypto';
 import { open, rename, unlink, type FileHandle } from 'node:fs/promises';
-import { basename, dirname, join } from 'node:path';
+import { dirname } from 'node:path';
 import { LexlockError } from '../LexlockError.js';
 import { ioError } from './ioError.js';
+import { trackTemp, untrackTemp } from './openTemps.js';
+import { assertNotSymlink } from './refuseSymlink.js';
+import { removeStaleTemps } from './removeStaleTemps.js';
+import { atomicTempPath } from './tempNames.js';
 
 /**
  * A file being written under a temporary name beside its destination. Nothing appears at the
@@ -29,21 +32,28 @@ const DIR_SYNC_UNSUPPORTED = new Set(['EINVAL', 'EISDIR', 'EPERM', 'EACCES', 'EB
 
 /** The temporary name for a destination: hidden, in the same folder, unique per process and call. */
 export function tempPathFor(path: string): string {
-  return join(dirname(path), `.${basename(path)}.${process.pid}.${randomBytes(6).toString('hex')}.tmp`);
+  return atomicTempPath(path);
 }
 
 /**
- * Opens a temporary file beside `path` for an atomic write.
+ * Opens a temporary file beside `path` for an atomic write. Refuses a `path` that is a symbolic link
+ * (`OUTPUT_SYMLINK`), first removes what dead lexlock runs left beside `path` (removeStaleTemps), and
+ * keeps the temporary file in this process's list of open ones (openTemps) until commit or abort.
  * @example
  * const file = await openAtomic('out/ids.npy');
  * try { await file.write(bytes); await file.commit(); } catch (e) { await file.abort(); throw e; }
  */
 export async function openAtomic(path: string): Promise<AtomicFile> {
+  await assertNotSymlink(path);
+  await removeStaleTemps(path);
   const tempPath = tempPathFor(path);
+  // Listed before it exists, so a signal that comes while it is being created still removes it.
+  trackTemp(tempPath, path);
   let handle: FileHandle;
   try {
     handle = await open(tempPath, 'wx');
   } catch (e) {
+    untrackTemp(tempPath);
     throw ioError(path, 'creating a temporary file beside it', e);
   }
   return new OpenAtomicFile(path, tempPath, handle);
@@ -96,6 +106,7 @@ class OpenAtomicFile implements AtomicFile {
         throw new StepError('renaming the temporary file over it', e);
       }
       this.state = 'committed';
+      untrackTemp(this.tempPath);
       await syncFolder(dirname(this.path)).catch((e: unknown) => {
         throw new StepError('flushing its folder to disk', e);
       });
@@ -145,6 +156,7 @@ class OpenAtomicFile implements AtomicFile {
     this.handle = null;
     if (handle !== null) await handle.close().catch(() => undefined);
     await unlink(this.tempPath).catch(() => undefined);
+    untrackTemp(this.tempPath);
   }
 }
 

@@ -2,6 +2,9 @@ import { mkdir, open, rm, type FileHandle } from 'node:fs/promises';
 import { dirname } from 'node:path';
 import { LexlockError } from '../LexlockError.js';
 import { ioError } from './ioError.js';
+import { trackTemp, untrackTemp } from './openTemps.js';
+import { removeStaleTemps } from './removeStaleTemps.js';
+import { spillDestination } from './tempNames.js';
 
 /** Numbers a block holds before it is written (4 MiB). */
 const BLOCK_INTS = 1 << 20;
@@ -34,12 +37,21 @@ export class NumberSpill {
     this.handle = handle;
   }
 
-  /** Creates the file at `path`, and its folder if need be (refused if something is there already). */
+  /**
+   * Creates the file at `path`, and its folder if need be (refused if something is there already,
+   * a symbolic link included). Kept in this process's list of open temporary files until
+   * {@link NumberSpill.remove}. A path named by spillPathFor stands for its lexicon: the spills and
+   * temporary files that dead runs left for that lexicon are removed first.
+   */
   static async create(path: string): Promise<NumberSpill> {
+    const destination = spillDestination(path);
+    if (destination !== null) await removeStaleTemps(destination);
+    trackTemp(path, destination);
     try {
       await mkdir(dirname(path), { recursive: true });
       return new NumberSpill(path, await open(path, 'wx+'));
     } catch (e) {
+      untrackTemp(path);
       throw ioError(path, 'creating a temporary file of token numbers', e);
     }
   }
@@ -80,6 +92,7 @@ export class NumberSpill {
   async remove(): Promise<void> {
     await this.handle.close().catch(() => undefined);
     await rm(this.path, { force: true });
+    untrackTemp(this.path);
   }
 
   private async writeBlock(): Promise<void> {

@@ -31,7 +31,6 @@ describe('assertWritable', () => {
 
   it.each([
     ['an existing file', 'lex.json', false, 'already exists; pass --force to overwrite it'],
-    ['a dangling symbolic link', 'dangling', false, 'already exists; pass --force to overwrite it'],
     ['a folder', 'out', false, 'is a folder; name a file to write instead'],
     ['a folder, even forced', 'out', true, 'is a folder; name a file to write instead'],
   ])('refuses %s with OUTPUT_EXISTS', async (_what, name, force, tail) => {
@@ -42,5 +41,21 @@ describe('assertWritable', () => {
     );
     expect(error).toBeInstanceOf(LexlockError);
     expect(error).toMatchObject({ code: 'OUTPUT_EXISTS', message: `${path} ${tail}`, where: { file: path } });
+  });
+
+  // A link is refused before the overwrite question: --force would not help (refuseSymlink.test.ts says why).
+  it.each([false, true])('refuses a dangling symbolic link with OUTPUT_SYMLINK (force %s)', async (force) => {
+    const path = join(root, 'dangling');
+    const error = await assertWritable(path, force).then(
+      () => null,
+      (e: unknown) => e,
+    );
+    expect(error).toBeInstanceOf(LexlockError);
+    const target = join(root, 'nowhere');
+    expect(error).toMatchObject({
+      code: 'OUTPUT_SYMLINK',
+      message: `${path} is a symbolic link to ${target}; lexlock does not write through symbolic links: remove the link, or name ${target} itself as the output`,
+      where: { file: path },
+    });
   });
 });
