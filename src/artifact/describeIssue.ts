@@ -1,6 +1,9 @@
+import { previewValue } from './previewValue.js';
+
 /** The parts of a schema issue lexlock reads (zod's issue objects have this shape). */
 export interface SchemaIssue {
   code: string;
+  origin?: string;
   path: ReadonlyArray<PropertyKey>;
   expected?: unknown;
   values?: readonly unknown[];
@@ -17,8 +20,12 @@ export function memberPath(path: ReadonlyArray<PropertyKey>): string {
   return out === '' ? '(top level)' : out;
 }
 
+/** Unknown member names a message lists before saying how many more there are. */
+const KEYS_LISTED = 3;
+
 function kindOf(value: unknown): string {
   if (value === null) return 'null';
+  if (typeof value === 'number' && !Number.isFinite(value)) return String(value);
   if (Array.isArray(value)) return 'an array';
   if (value === undefined) return 'nothing';
   return typeof value === 'object' ? 'an object' : `a ${typeof value}`;
@@ -41,18 +48,27 @@ export function describeIssue(issue: SchemaIssue, doc: unknown): string {
   const where = memberPath(issue.path);
   const got = valueAt(doc, issue.path);
   switch (issue.code) {
-    case 'invalid_type':
+    case 'invalid_type': {
+      if (issue.expected === 'int') return `${where}: expected a whole number, got ${typeof got === 'number' ? previewValue(got) : kindOf(got)}`;
       return `${where}: expected ${issue.expected === 'array' || issue.expected === 'object' ? `an ${String(issue.expected)}` : `a ${String(issue.expected)}`}, got ${kindOf(got)}`;
+    }
     case 'invalid_value':
-      return `${where}: expected ${(issue.values ?? []).map((v) => JSON.stringify(v)).join(' or ')}, got ${JSON.stringify(got) ?? 'nothing'}`;
-    case 'unrecognized_keys':
-      return `${where}: unknown member${(issue.keys ?? []).length === 1 ? '' : 's'} ${(issue.keys ?? []).map((k) => JSON.stringify(k)).join(', ')}`;
+      return `${where}: expected ${(issue.values ?? []).map((v) => previewValue(v)).join(' or ')}, got ${previewValue(got)}`;
+    case 'unrecognized_keys': {
+      const keys = issue.keys ?? [];
+      const listed = keys.slice(0, KEYS_LISTED).map((k) => previewValue(k)).join(', ');
+      const more = keys.length > KEYS_LISTED ? ` and ${keys.length - KEYS_LISTED} more` : '';
+      return `${where}: unknown member${keys.length === 1 ? '' : 's'} ${listed}${more}`;
+    }
     case 'too_small':
-      return `${where}: ${JSON.stringify(got)} is below the minimum ${String(issue.minimum)}`;
+      if (issue.origin === 'string') {
+        return `${where}: ${previewValue(got)} is shorter than ${String(issue.minimum)} character${issue.minimum === 1 ? '' : 's'}`;
+      }
+      return `${where}: ${previewValue(got)} is below the minimum ${String(issue.minimum)}`;
     case 'too_big':
-      return `${where}: ${JSON.stringify(got)} is above the maximum ${String(issue.maximum)}`;
+      return `${where}: ${previewValue(got)} is above the maximum ${String(issue.maximum)}`;
     case 'invalid_format':
-      return `${where}: ${JSON.stringify(got)} does not match ${String(issue.pattern)}`;
+      return `${where}: ${previewValue(got)} does not match ${String(issue.pattern)}`;
     default:
       return `${where}: invalid (${issue.code})`;
   }

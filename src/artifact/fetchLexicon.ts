@@ -4,7 +4,7 @@ import { parseLexicon, type ParseLexiconOptions } from './parseLexicon.js';
 
 /**
  * Fetches a lexicon file over HTTP (the global `fetch` of browsers and Node) and reads it as
- * {@link parseLexicon} does: schema, fingerprint, canaries, and `expectFingerprint` when given. A
+ * {@link parseLexicon} does: UTF-8, schema, fingerprint, canaries, and `expectFingerprint` when given. A
  * response other than 2xx is an `IO` error naming the URL and the status.
  * @example const lexicon = await fetchLexicon('/models/reviews/lexicon.json', { expectFingerprint: model.fingerprint });
  */
@@ -19,5 +19,6 @@ export async function fetchLexicon(url: string | URL, options: ParseLexiconOptio
   if (!response.ok) {
     throw inputError('IO', { file: source }, `fetching the lexicon answered ${`${response.status} ${response.statusText}`.trim()}; check the URL and that the server has the file`);
   }
-  return parseLexicon(await response.text(), { ...options, source });
+  // The bytes, not response.text(): that would replace ill-formed UTF-8 instead of refusing it.
+  return parseLexicon(new Uint8Array(await response.arrayBuffer()), { ...options, source });
 }

@@ -1,5 +1,6 @@
 import { inputError, type Where } from '../LexlockError.js';
 import { VERSION } from '../version.js';
+import { previewValue } from './previewValue.js';
 import { FORMAT_VERSION, LEXICON_FORMAT } from './schema.js';
 
 /**
@@ -14,7 +15,8 @@ export function migrate(raw: unknown, where: Where): Record<string, unknown> {
   const doc = raw as Record<string, unknown>;
   const version = doc.formatVersion;
   if (typeof version !== 'number' || !Number.isInteger(version) || version < 1) {
-    throw inputError('BAD_LEXICON', { ...where, field: 'formatVersion' }, `formatVersion ${JSON.stringify(version)} is not a format version (a whole number from 1)`);
+    const what = version === undefined ? 'formatVersion is missing' : `formatVersion is ${previewValue(version)}, not a format version`;
+    throw inputError('BAD_LEXICON', { ...where, field: 'formatVersion' }, `${what} (a whole number from 1); rebuild it with lexlock build`);
   }
   if (version > FORMAT_VERSION) {
     throw inputError(

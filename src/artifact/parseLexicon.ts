@@ -1,10 +1,13 @@
 import { inputError, isLexlockError, type Where } from '../LexlockError.js';
 import { Lexicon } from '../lexicon/Lexicon.js';
 import { checkCanaries } from './canaries.js';
+import { checkEncoding } from './checkEncoding.js';
+import { decodeLexiconBytes } from './decodeLexiconBytes.js';
 import { describeIssue, memberPath } from './describeIssue.js';
 import { fingerprintOf } from './fingerprint.js';
 import { migrate } from './migrate.js';
-import { lexiconFileSchema } from './schema.js';
+import { previewValue } from './previewValue.js';
+import { lexiconFileSchema, type Encoding } from './schema.js';
 
 /** Options of {@link parseLexicon}. */
 export interface ParseLexiconOptions {
@@ -16,23 +19,77 @@ export interface ParseLexiconOptions {
   source?: string;
 }
 
+/** The JSON text's own value; any failure of the parser is `NOT_JSON`, a stack overflow included. */
+function parseJson(text: string, where: Where): unknown {
+  try {
+    return JSON.parse(text);
+  } catch (e) {
+    // Some engines parse nested arrays and objects recursively and run out of stack on deep nesting
+    // (V8 in Node 20 does not, even at a million levels); no lexicon member nests more than 4 levels.
+    const why = e instanceof Error ? e.message : String(e);
+    const what = e instanceof RangeError ? `nested too deeply or too large for this JavaScript engine to read (${why})` : `not JSON (${why})`;
+    throw inputError('NOT_JSON', where, `${what}; pass a lexicon file written by lexlock build`);
+  }
+}
 
 /**
- * Reads a lexicon from its JSON text or parsed object: format and version, schema, fingerprint,
- * duplicate tokens and canaries are all checked; anything wrong is a LexlockError naming the member.
- * Browser-safe.
+ * The fingerprint of a checked encoding. Canonical JSON cannot carry a string with a lone surrogate
+ * (which JSON text may spell as `"\ud800"`); such a string is refused as the member it is in.
+ */
+function fingerprintIn(encoding: Encoding, where: Where): string {
+  try {
+    return fingerprintOf(encoding);
+  } catch (e) {
+    const path = isLexlockError(e) ? e.where.field : undefined;
+    if (path === undefined || !path.startsWith('$')) throw e;
+    const field = `encoding${path.slice(1)}`;
+    throw inputError('BAD_LEXICON', { ...where, field }, `not a valid lexicon: ${field}: a string holds a lone surrogate (half a UTF-16 pair), which no lexicon can hash; rebuild it with lexlock build`);
+  }
+}
+
+/**
+ * The `DUPLICATE_TOKEN` error for the first token that appears twice in `encoding.tokens`, with a
+ * long token shortened so the message stays readable; null when every token is distinct.
+ */
+function duplicateToken(encoding: Encoding, where: Where) {
+  const firstId = encoding.layout.oov === 'first' ? 2 : 1;
+  const seen = new Map<string, number>();
+  for (let i = 0; i < encoding.tokens.length; i++) {
+    const token = encoding.tokens[i] as string;
+    const before = seen.get(token);
+    if (before !== undefined) {
+      return inputError(
+        'DUPLICATE_TOKEN',
+        { ...where, field: 'encoding.tokens' },
+        `${previewValue(token)} stands at ids ${before + firstId} and ${i + firstId}; every token must appear once in encoding.tokens`,
+      );
+    }
+    seen.set(token, i);
+  }
+  return null;
+}
+
+/** The first 8 tokens of a canary, each shortened when long, as a JSON-like list. */
+function listPreview(tokens: readonly string[]): string {
+  return `[${tokens.slice(0, 8).map((t) => previewValue(t)).join(',')}]`;
+}
+
+/** A stored name as is when short, shortened otherwise. */
+function shortName(name: string): string {
+  return name.length <= 60 ? name : previewValue(name);
+}
+
+/**
+ * Reads a lexicon from its JSON text, its UTF-8 bytes or its parsed object: UTF-8, format and
+ * version, schema, fingerprint, duplicate tokens and canaries are all checked; anything wrong is a
+ * LexlockError naming the member. Browser-safe.
  * @example const lexicon = parseLexicon(await (await fetch('/lexicon.json')).text(), { expectFingerprint: model.fingerprint });
  */
-export function parseLexicon(input: string | object, options: ParseLexiconOptions = {}): Lexicon {
+export function parseLexicon(input: string | Uint8Array | object, options: ParseLexiconOptions = {}): Lexicon {
   const where: Where = options.source === undefined ? {} : { file: options.source };
   let raw: unknown = input;
-  if (typeof input === 'string') {
-    try {
-      raw = JSON.parse(input);
-    } catch (e) {
-      throw inputError('NOT_JSON', where, `not JSON (${(e as Error).message}); pass a lexicon file written by lexlock build`);
-    }
-  }
+  if (input instanceof Uint8Array) raw = parseJson(decodeLexiconBytes(input, where), where);
+  else if (typeof input === 'string') raw = parseJson(input, where);
   const doc = migrate(raw, where);
   const parsed = lexiconFileSchema.safeParse(doc);
   if (!parsed.success) {
@@ -45,19 +102,8 @@ export function parseLexicon(input: string | object, options: ParseLexiconOption
   }
   const file = parsed.data;
   const { encoding } = file;
-  if (encoding.layout.reserved > encoding.tokens.length) {
-    throw inputError('BAD_LEXICON', { ...where, field: 'encoding.layout.reserved' }, `${encoding.layout.reserved} reserved tokens but only ${encoding.tokens.length} tokens; rebuild it with lexlock build`);
-  }
-  if (encoding.labels !== null) {
-    for (let i = 1; i < encoding.labels.length; i++) {
-      const a = encoding.labels[i - 1] as string;
-      const b = encoding.labels[i] as string;
-      if (!(a < b)) {
-        throw inputError('BAD_LEXICON', { ...where, field: `encoding.labels[${i}]` }, `labels must be distinct and in JavaScript string order ("${a}" then "${b}"); rebuild it with lexlock build`);
-      }
-    }
-  }
-  const computed = fingerprintOf(encoding);
+  checkEncoding(encoding, where);
+  const computed = fingerprintIn(encoding, where);
   if (computed !== file.fingerprint) {
     throw inputError('FINGERPRINT_MISMATCH', { ...where, field: 'fingerprint' }, `fingerprint ${file.fingerprint} does not match the encoding, which hashes to ${computed}; the file was edited or damaged: restore it or rebuild it`);
   }
@@ -68,7 +114,8 @@ export function parseLexicon(input: string | object, options: ParseLexiconOption
   try {
     lexicon = new Lexicon(encoding, file.fit, file.canaries, computed);
   } catch (e) {
-    if (isLexlockError(e)) throw inputError(e.code, { ...where, ...e.where }, e.message);
+    // The Lexicon names a duplicate in full; the same message with a long token shortened.
+    if (isLexlockError(e)) throw (e.code === 'DUPLICATE_TOKEN' ? duplicateToken(encoding, where) : null) ?? inputError(e.code, { ...where, ...e.where }, e.message);
     throw e;
   }
   if (options.checkCanaries ?? true) {
@@ -78,7 +125,7 @@ export function parseLexicon(input: string | object, options: ParseLexiconOption
       throw inputError(
         'CANARY_MISMATCH',
         { ...where, field: `canaries[${d.index}]` },
-        `canary ${JSON.stringify(d.text.slice(0, 40))} now gives ${JSON.stringify(d.actual.slice(0, 8))} but gave ${JSON.stringify(d.expected.slice(0, 8))} when the lexicon was built (${differences.length} of ${file.canaries.length} canaries differ); the tokenizer or Unicode data changed under it (built with ${encoding.rules.tokenizer}): use the versions it was built with, or rebuild it`,
+        `canary ${JSON.stringify(d.text.slice(0, 40))} now gives ${listPreview(d.actual)} but gave ${listPreview(d.expected)} when the lexicon was built (${differences.length} of ${file.canaries.length} canaries differ); the tokenizer or Unicode data changed under it (built with ${shortName(encoding.rules.tokenizer)}): use the versions it was built with, or rebuild it`,
       );
     }
   }

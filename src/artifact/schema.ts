@@ -20,9 +20,16 @@ export const rulesSchema = z.strictObject({
   tokenizer: z.string().check(z.minLength(1)),
 });
 
+/**
+ * The longest shape a lexicon may store: 2^20 ids a row (4 MiB as Int32), past the longest input any
+ * sequence model takes. Our own limit: every encode allocates a whole row, so a file asking for far
+ * more (up to the 2^53 a JSON number holds) would make each encode fail or take gigabytes.
+ */
+export const MAX_SHAPE_LENGTH = 2 ** 20;
+
 /** Shape as stored in a lexicon. */
 export const shapeSchema = z.strictObject({
-  length: z.number().check(z.int(), z.minimum(1)),
+  length: z.number().check(z.int(), z.minimum(1), z.maximum(MAX_SHAPE_LENGTH)),
   pad: side,
   cut: side,
 });

@@ -1,7 +1,7 @@
 import { isUtf8 } from 'node:buffer';
 import { inputError, type Where } from '../LexlockError.js';
 import type { CorpusStats } from './CorpusStats.js';
-import { firstInvalidUtf8 } from './firstInvalidUtf8.js';
+import { firstInvalidUtf8 } from '../artifact/firstInvalidUtf8.js';
 
 /** What to do with a document whose bytes are not valid UTF-8 (encoding contract, rule 7). */
 export type BadTextPolicy = 'fail' | 'replace' | 'skip';

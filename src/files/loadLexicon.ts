@@ -8,13 +8,14 @@ import type { Lexicon } from '../lexicon/Lexicon.js';
  * @example const lexicon = await loadLexicon('model/lexicon.json', { expectFingerprint: 'sha256:…' });
  */
 export async function loadLexicon(path: string, options: Omit<ParseLexiconOptions, 'source'> = {}): Promise<Lexicon> {
-  let text: string;
+  let bytes: Uint8Array;
   try {
-    text = await readFile(path, 'utf8');
+    // Bytes, not text: parseLexicon refuses invalid UTF-8 (naming the byte) instead of replacing it.
+    bytes = await readFile(path);
   } catch (e) {
     const err = e as NodeJS.ErrnoException;
     const what = err.code === 'ENOENT' ? 'no such file' : err.code === 'EISDIR' ? 'is a folder, not a lexicon file' : err.message;
     throw new LexlockError('IO', `${path}: cannot read the lexicon (${what}); pass the path of a file written by lexlock build`, { file: path });
   }
-  return parseLexicon(text, { ...options, source: path });
+  return parseLexicon(bytes, { ...options, source: path });
 }

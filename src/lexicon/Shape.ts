@@ -1,4 +1,5 @@
 import { LexlockError } from '../LexlockError.js';
+import { MAX_SHAPE_LENGTH } from '../artifact/schema.js';
 
 /**
  * A fixed sequence shape (encoding contract, rule 5): every row has `length` ids; `pad` says where
@@ -14,6 +15,9 @@ export interface Shape {
 export function checkShape(shape: Shape): Shape {
   if (!Number.isSafeInteger(shape.length) || shape.length < 1) {
     throw new LexlockError('BAD_OPTION', `length: ${String(shape.length)} is not a positive whole number of tokens`, { field: 'length' });
+  }
+  if (shape.length > MAX_SHAPE_LENGTH) {
+    throw new LexlockError('BAD_OPTION', `length: ${shape.length} is longer than a lexicon can store (${MAX_SHAPE_LENGTH} tokens at most)`, { field: 'length' });
   }
   if (shape.pad !== 'pre' && shape.pad !== 'post') {
     throw new LexlockError('BAD_OPTION', `pad: "${String(shape.pad)}" is not a side; use pre or post`, { field: 'pad' });

@@ -19,6 +19,17 @@ describe('saveLexicon and loadLexicon', () => {
     expect(back.encoding).toEqual(lexicon.encoding);
   });
 
+  it('refuse a file that is not UTF-8, naming the byte', async () => {
+    await saveLexicon(tmp.path('lex.json'), lexicon);
+    const bytes = await readFile(tmp.path('lex.json'));
+    const at = bytes.indexOf('"createdAt": "') + 14;
+    await writeFile(tmp.path('lex.json'), Buffer.concat([bytes.subarray(0, at), Buffer.from([0xff]), bytes.subarray(at)]));
+    const line = bytes.subarray(0, at).toString().split('\n').length;
+    await expect(loadLexicon(tmp.path('lex.json'))).rejects.toThrow(
+      `${tmp.path('lex.json')} line ${line}: invalid UTF-8 at byte ${at}; a lexicon file is UTF-8 JSON as lexlock build writes it: restore the file or rebuild it`,
+    );
+  });
+
   it('refuse to overwrite unless forced', async () => {
     await writeFile(tmp.path('lex.json'), 'keep me');
     await expect(saveLexicon(tmp.path('lex.json'), lexicon)).rejects.toThrow(`${tmp.path('lex.json')} already exists; pass --force to overwrite it`);

@@ -1,12 +1,13 @@
 /**
  * Index of the first byte of the first ill-formed UTF-8 sequence in `bytes[start, end)`, or -1 when
  * the range is well-formed (Unicode 15 §3.9, table 3-7). A truncated sequence is reported at its lead byte.
- * @example firstInvalidUtf8(Buffer.from([0x61, 0xe2, 0x82, 0x41])) // 1
+ * Browser-safe: used for corpora and for lexicon files alike.
+ * @example firstInvalidUtf8(new Uint8Array([0x61, 0xe2, 0x82, 0x41])) // 1
  */
 export function firstInvalidUtf8(bytes: Uint8Array, start = 0, end = bytes.length): number {
   let i = start;
   while (i < end) {
-    const b = bytes[i]!;
+    const b = bytes[i] as number;
     if (b < 0x80) {
       i += 1;
       continue;
@@ -25,10 +26,10 @@ export function firstInvalidUtf8(bytes: Uint8Array, start = 0, end = bytes.lengt
       else if (b === 0xf4) hi = 0x8f;
     } else return i;
     if (i + need >= end) return i; // the sequence runs past the end: truncated
-    const second = bytes[i + 1]!;
+    const second = bytes[i + 1] as number;
     if (second < lo || second > hi) return i;
     for (let k = 2; k <= need; k++) {
-      const c = bytes[i + k]!;
+      const c = bytes[i + k] as number;
       if (c < 0x80 || c > 0xbf) return i;
     }
     i += need + 1;

@@ -1,7 +1,7 @@
 import { isUtf8 } from 'node:buffer';
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { firstInvalidUtf8 } from '../../src/corpus/firstInvalidUtf8.js';
+import { firstInvalidUtf8 } from '../../src/artifact/firstInvalidUtf8.js';
 
 const bytes = (...b: number[]) => Uint8Array.from(b);
 
