@@ -1,4 +1,4 @@
-import { mkdir, readdir } from 'node:fs/promises';
+import { mkdir, readdir, rm } from 'node:fs/promises';
 import { dirname, join } from 'node:path';
 import { LexlockError } from '../LexlockError.js';
 import type { CorpusStats } from '../corpus/CorpusStats.js';
@@ -119,9 +119,14 @@ async function npyOutput(folder: string, shape: Shape, manifest: (stats: EncodeS
       rows += 1;
     },
     async finish(stats) {
+      // The manifest goes first and comes back last, so a folder with a manifest always holds one
+      // run's files: a run stopped between the renames below leaves no manifest, never a mixed folder.
+      await rm(join(folder, 'manifest.json'), { force: true });
       await ids.finish();
       await lengths.finish();
       if (labels !== null) await (labels as NpyWriter).finish();
+      // An unlabelled run over a labelled one's folder (--force) must not leave the old labels beside it.
+      else await rm(join(folder, 'labels.npy'), { force: true });
       await writeFileAtomic(join(folder, 'manifest.json'), `${JSON.stringify(manifest(stats, labels !== null), null, 2)}\n`);
     },
     async abort() {

@@ -1,4 +1,4 @@
-import { readFile, writeFile } from 'node:fs/promises';
+import { readdir, readFile, writeFile } from 'node:fs/promises';
 import npyjs from 'npyjs';
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
 import { cli, tempFolder } from '../helpers/cli.js';
@@ -22,6 +22,16 @@ async function readNpy(path: string): Promise<{ data: number[]; shape: number[];
 }
 
 describe('lexlock encode', () => {
+  it('an unlabelled run over a labelled run\'s folder (--force) leaves no labels.npy behind', async () => {
+    expect((await cli('build', tmp.path('m.csv'), '-o', tmp.path('lex.json'), '--label', 'topic', '--length', '4')).code).toBe(0);
+    expect((await cli('encode', tmp.path('held.csv'), '--lexicon', tmp.path('lex.json'), '-o', tmp.path('out'))).code).toBe(0);
+    await writeFile(tmp.path('plain.txt'), 'late again\nlovely\n');
+    const r = await cli('encode', tmp.path('plain.txt'), '--lexicon', tmp.path('lex.json'), '-o', tmp.path('out'), '--force');
+    expect([r.code, r.stderr]).toEqual([0, '']);
+    expect((await readdir(tmp.path('out'))).sort()).toEqual(['ids.npy', 'lengths.npy', 'manifest.json']);
+    expect(JSON.parse(await readFile(tmp.path('out/manifest.json'), 'utf8')).files.labels).toBeNull();
+  });
+
   it('writes ids.npy, lengths.npy, labels.npy and manifest.json with the lexicon shape', async () => {
     expect((await cli('build', tmp.path('m.csv'), '-o', tmp.path('lex.json'), '--label', 'topic', '--cap', '3', '--length', '4', '--pad', 'pre')).code).toBe(0);
     const r = await cli('encode', tmp.path('held.csv'), '--lexicon', tmp.path('lex.json'), '-o', tmp.path('out'));
