@@ -1,4 +1,5 @@
 import { LexlockError } from '../LexlockError.js';
+import { isWellFormed } from '../rules/wellFormed.js';
 
 /**
  * The RFC 8785 (JSON Canonicalization Scheme) form of a JSON value: no white space, object members
@@ -13,20 +14,12 @@ export function canonicalJson(value: unknown): string {
   return parts.join('');
 }
 
-const LONE_SURROGATE = /[\uD800-\uDBFF](?![\uDC00-\uDFFF])|(?<![\uD800-\uDBFF])[\uDC00-\uDFFF]/;
-
-/** True when `s` has no lone surrogate (the engine's own check where it has one: ES2024). */
-const wellFormed: (s: string) => boolean =
-  typeof (String.prototype as { isWellFormed?: unknown }).isWellFormed === 'function'
-    ? (s) => (s as string & { isWellFormed(): boolean }).isWellFormed()
-    : (s) => !LONE_SURROGATE.test(s);
-
 function loneSurrogate(path: string): LexlockError {
   return new LexlockError('BAD_OPTION', `${path}: a string holds a lone surrogate, which canonical JSON cannot carry`, { field: path });
 }
 
 function writeString(s: string, parts: string[], path: string): void {
-  if (!wellFormed(s)) throw loneSurrogate(path);
+  if (!isWellFormed(s)) throw loneSurrogate(path);
   parts.push(JSON.stringify(s));
 }
 
@@ -38,7 +31,7 @@ function writeStrings(items: readonly unknown[], parts: string[], path: string):
   for (let i = 0; i < items.length; i++) {
     const item = items[i];
     if (typeof item !== 'string') return false;
-    if (!wellFormed(item)) throw loneSurrogate(`${path}[${i}]`);
+    if (!isWellFormed(item)) throw loneSurrogate(`${path}[${i}]`);
   }
   parts.push(JSON.stringify(items));
   return true;

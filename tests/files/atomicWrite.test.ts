@@ -8,6 +8,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { isLexlockError, type LexlockError } from '../../src/LexlockError.js';
 import { openAtomic, writeFileAtomic } from '../../src/files/atomicWrite.js';
 import { tempPathFor } from '../../src/files/AtomicFile.js';
+import { caughtError } from '../helpers/caughtError.js';
 
 // What "atomic" means here is POSIX rename(2): "If newpath already exists, it will be atomically
 // replaced, so that there is no point at which another process attempting to access newpath will
@@ -24,16 +25,6 @@ async function folder(): Promise<string> {
   return dir;
 }
 
-/** Runs `fn` and returns the LexlockError it throws (fails the test when it throws nothing else). */
-async function caught(fn: () => Promise<unknown>): Promise<LexlockError> {
-  try {
-    await fn();
-  } catch (e) {
-    if (isLexlockError(e)) return e;
-    throw e;
-  }
-  throw new Error('expected a LexlockError, nothing was thrown');
-}
 
 const SUFFIX = '; check that its folder exists, that you may write there and that the disk has room';
 
@@ -70,7 +61,7 @@ describe('writeFileAtomic', () => {
   it('fails with IO naming the path when the parent folder does not exist', async () => {
     const dir = await folder();
     const path = join(dir, 'missing', 'lex.json');
-    const error = await caught(() => writeFileAtomic(path, 'x'));
+    const error = await caughtError(() => writeFileAtomic(path, 'x'));
     expect(error.code).toBe('IO');
     // "no such file or directory" is the C library's strerror(ENOENT) text, which libuv reports (common practice).
     expect(error.message).toBe(
@@ -84,7 +75,7 @@ describe('writeFileAtomic', () => {
     const dir = await folder();
     const path = join(dir, 'out');
     await mkdir(join(path, 'inside'), { recursive: true });
-    const error = await caught(() => writeFileAtomic(path, 'x'));
+    const error = await caughtError(() => writeFileAtomic(path, 'x'));
     // rename(2): EISDIR "newpath is an existing directory, but oldpath is not a directory" (Linux man-pages).
     expect(error.message).toBe(`${path}: could not write the file (EISDIR: illegal operation on a directory, while renaming the temporary file over it)${SUFFIX}`);
     expect(await readdir(dir)).toEqual(['out']);
@@ -101,7 +92,7 @@ describe('writeFileAtomic', () => {
     try {
       let message: string;
       if (process.getuid?.() !== 0) {
-        message = (await caught(() => writeFileAtomic(path, 'new'))).message;
+        message = (await caughtError(() => writeFileAtomic(path, 'new'))).message;
       } else {
         for (let d = dir; d !== dirname(d); d = dirname(d)) if (d.startsWith(tmpdir()) && d !== tmpdir()) await chmod(d, d === dir ? 0o555 : 0o755);
         const module = pathToFileURL(join(fileURLToPath(import.meta.url), '../../../src/files/atomicWrite.ts')).href;
@@ -192,12 +183,12 @@ describe('openAtomic', () => {
     await writeFile(path, 'old');
     const file = await openAtomic(path);
     await file.write(new Uint8Array([1]));
-    const error = await caught(() => file.writeAt(new Uint8Array([2]), -1));
+    const error = await caughtError(() => file.writeAt(new Uint8Array([2]), -1));
     expect(error.code).toBe('IO');
     expect(error.message).toBe(`${path}: could not write the file (position -1 is not a byte offset from 0 up, while writing)${SUFFIX}`);
     expect(await readdir(dir)).toEqual(['lex.json']);
     expect(await readFile(path, 'utf8')).toBe('old');
-    expect(await caught(() => file.commit())).toBe(error);
+    expect(await caughtError(() => file.commit())).toBe(error);
     expect(await readFile(path, 'utf8')).toBe('old');
   });
 
@@ -211,7 +202,7 @@ describe('openAtomic', () => {
     const file = await openAtomic(path);
     await file.write(new Uint8Array([5]));
     await file.commit();
-    const error = await caught(() => call(file));
+    const error = await caughtError(() => call(file));
     expect(error.code).toBe('WRITER_CLOSED');
     expect(error.message).toBe(`${path}: the file was already committed; open a new one to write again`);
     await file.abort();
@@ -223,7 +214,7 @@ describe('openAtomic', () => {
     const path = join(dir, 'gone.bin');
     const file = await openAtomic(path);
     await file.abort();
-    const error = await caught(() => file.write(new Uint8Array(1)));
+    const error = await caughtError(() => file.write(new Uint8Array(1)));
     expect(error.message).toBe(`${path}: the file was already aborted; open a new one to write again`);
     expect(await readdir(dir)).toEqual([]);
   });

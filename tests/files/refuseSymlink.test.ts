@@ -11,6 +11,7 @@ import { JsonlWriter } from '../../src/output/JsonlWriter.js';
 import { Tally } from '../../src/tally/Tally.js';
 import { resolveRules } from '../../src/rules/TextRules.js';
 import { caseFolders } from '../helpers/caseFolders.js';
+import { caughtError } from '../helpers/caughtError.js';
 
 const folder = caseFolders('symlink');
 
@@ -19,15 +20,6 @@ const folder = caseFolders('symlink');
 // man-pages), so an atomic write can never update the file a link points to; it would silently turn
 // the link into a plain file. lexlock refuses every link, inside the folder or outside it.
 
-async function refusal(fn: () => Promise<unknown>): Promise<LexlockError> {
-  try {
-    await fn();
-  } catch (e) {
-    if (isLexlockError(e)) return e;
-    throw e;
-  }
-  throw new Error('expected a LexlockError, nothing was thrown');
-}
 
 function message(link: string, target: string): string {
   return `${link} is a symbolic link to ${target}; lexlock does not write through symbolic links: remove the link, or name ${target} itself as the output`;
@@ -56,7 +48,7 @@ describe('assertNotSymlink', () => {
     ['nowhere (dangling)', 'dangling', false],
   ] as const)('refuses a link pointing %s with OUTPUT_SYMLINK, naming both paths', async (_what, kind, relative) => {
     const { link, target } = await linkCase('lex.json', kind, relative);
-    const error = await refusal(() => assertNotSymlink(link));
+    const error = await caughtError(() => assertNotSymlink(link));
     expect(error).toMatchObject({ code: 'OUTPUT_SYMLINK', message: message(link, target), where: { file: link } });
     expect(error.isUsage).toBe(false); // bad input: the CLI exits 1
   });
@@ -82,7 +74,7 @@ describe('writers refuse a symbolic link and leave the link and its target as th
   ])('%s', async (_what, name, write) => {
     for (const kind of ['outside', 'inside'] as const) {
       const { dir, link, target, written } = await linkCase(name, kind);
-      const error = await refusal(() => write(link));
+      const error = await caughtError(() => write(link));
       expect([error.code, error.message]).toEqual(['OUTPUT_SYMLINK', message(link, target)]);
       expect((await lstat(link)).isSymbolicLink()).toBe(true);
       expect(await readlink(link)).toBe(written);
