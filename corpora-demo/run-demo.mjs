@@ -21,7 +21,7 @@ const heldOut = at('corpora-demo/ferry-messages.jsonl');
 const encoded = at('demo-out/ferry-encoded');
 const steps = [
   // 2,000 tokens of about 4,000 distinct; rows of 64 ids (p95 of the lengths is 57), zeros in front.
-  ['build', corpus, '-o', lexicon, '--label', 'topic', '--cap', '2000', '--length', '64', '--pad', 'pre', '--force'],
+  ['build', corpus, '-o', lexicon, '--label', 'topic', '--cap', '2000', '--length', '64', '--pad', 'start', '--force'],
   ['encode', corpus, '--lexicon', lexicon, '-o', encoded, '--force'],
   // Messages the lexicon never saw: their OOV rate is the one to watch after launch.
   ['encode', heldOut, '--lexicon', lexicon, '-o', at('demo-out/held-out.jsonl'), '--force'],

@@ -29,6 +29,7 @@ export type LexlockErrorCode =
   | 'NOT_JSON'
   | 'NOT_A_LEXICON'
   | 'NEWER_FORMAT'
+  | 'OLD_FORMAT'
   | 'BAD_LEXICON'
   | 'FINGERPRINT_MISMATCH'
   | 'DUPLICATE_TOKEN'

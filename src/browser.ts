@@ -6,7 +6,7 @@ export { LexlockError, isLexlockError, formatWhere, type Where, type LexlockErro
 export { resolveRules, DEFAULT_RULES, TOKEN_TYPES, WORD_TOKENIZER, CHAR_TOKENIZER, type TextRules, type TextRulesInput, type TokenType } from './rules/TextRules.js';
 export { tokenize } from './rules/tokenize.js';
 export { Lexicon, PADDING_ID, type Batch, type EncodeOptions } from './lexicon/Lexicon.js';
-export { checkShape, type Shape } from './lexicon/Shape.js';
+export { checkShape, describeShape, SHAPE_ENDS, type Shape, type ShapeEnd } from './lexicon/Shape.js';
 export { parseLexicon, type ParseLexiconOptions } from './artifact/parseLexicon.js';
 export { fetchLexicon } from './artifact/fetchLexicon.js';
 export { canonicalJson } from './artifact/canonicalJson.js';

@@ -14,9 +14,9 @@ export {
 export { tokenize } from './rules/tokenize.js';
 export { Tally, type LabelledText, type LabelCounts } from './tally/Tally.js';
 export { nearestRank, summarizeLengths, type LengthSummary } from './tally/nearestRank.js';
-export { freeze, type FreezeOptions } from './lexicon/freeze.js';
+export { freeze, DEFAULT_CAP, type FreezeOptions } from './lexicon/freeze.js';
 export { Lexicon, PADDING_ID, type Batch, type EncodeOptions } from './lexicon/Lexicon.js';
-export { checkShape, type Shape } from './lexicon/Shape.js';
+export { checkShape, describeShape, SHAPE_ENDS, type Shape, type ShapeEnd } from './lexicon/Shape.js';
 export { parseLexicon, type ParseLexiconOptions } from './artifact/parseLexicon.js';
 export { fetchLexicon } from './artifact/fetchLexicon.js';
 export { serializeLexicon } from './artifact/serializeLexicon.js';

@@ -3,7 +3,7 @@ export * from './index.js';
 export { readCorpus, type CorpusDocument, type CorpusOptions, type CorpusReader, type CorpusStats } from './corpus/readCorpus.js';
 export { saveLexicon, type SaveLexiconOptions } from './files/saveLexicon.js';
 export { loadLexicon } from './files/loadLexicon.js';
-export { writeFileAtomic } from './files/atomicWrite.js';
+export { writeWhole } from './files/writeWhole.js';
 export { tallyCorpus, type CorpusTally, type TallyCorpusOptions } from './pipeline/tallyCorpus.js';
 export { tallyAndRecord, type RecordedTally } from './pipeline/tallyAndRecord.js';
 export { encodeCorpus, type EncodeStats, type RowSink, type EncodeCorpusOptions } from './pipeline/encodeCorpus.js';

@@ -1,2 +1,2 @@
 /** This lexlock's version (the package version). */
-export const VERSION = '0.1.0';
+export const VERSION = '0.2.0';

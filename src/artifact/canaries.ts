@@ -4,7 +4,8 @@ import type { Canary } from './schema.js';
 
 /**
  * Fixed probe texts covering the tokenizer's riskier paths: contractions, numbers and times, URLs,
- * e-mail addresses, emoji, accented Latin, compatibility characters (NFKC), Cyrillic, Greek, CJK.
+ * e-mail addresses, emoji, accented Latin, compatibility characters (NFKC), Cyrillic, Greek, CJK, and
+ * white space of many kinds (at the character level each run of it is one space token).
  */
 export const PROBE_TEXTS: readonly string[] = [
   "I can't believe it's not late; we'll see, won't we? The captain's boats' ropes.",
@@ -14,6 +15,7 @@ export const PROBE_TEXTS: readonly string[] = [
   'Café naïve façade Ærø Øresund Straße ﬁne ① Ｆｕｌｌｗｉｄｔｈ Å',
   'Паром опоздал на двадцать минут. Το πλοίο ήταν γεμάτο.',
   '東京へ行くフェリーは遅れました。서울 항구 ฉันชอบเรือ',
+  'Tabs\tand  two spaces,\u00a0no-break\u2003em\u3000wide\r\nnew line\u2028end \ufeff!',
 ];
 
 /** Canaries for the given rules: each probe text and snippet with the tokens it gives now. */

@@ -13,7 +13,7 @@ function firstOutOfOrder(list: readonly string[]): number {
 /**
  * What the schema cannot say about an encoding: no more reserved tokens than tokens, labels distinct
  * and in string order, and rules as lexlock writes them (`drop` and `collapse` distinct and sorted,
- * at the word level only, no type in both). Throws `BAD_LEXICON` naming the member.
+ * at the word level only, no type in both; `spaces` at the character level only). Throws `BAD_LEXICON` naming the member.
  */
 export function checkEncoding(encoding: Encoding, where: Where): void {
   const bad = (field: string, detail: string) => inputError('BAD_LEXICON', { ...where, field }, `${detail}; ${REBUILD}`);
@@ -38,6 +38,14 @@ export function checkEncoding(encoding: Encoding, where: Where): void {
     if (rules.level === 'char' && list.length > 0) {
       throw bad(`encoding.rules.${member}`, `encoding.rules.${member}: token types are dropped or collapsed at the word level only, but encoding.rules.level is "char"`);
     }
+  }
+  if ((rules.level === 'char') !== (rules.spaces !== null)) {
+    throw bad(
+      'encoding.rules.spaces',
+      rules.level === 'char'
+        ? 'encoding.rules.spaces is null, but the character level needs "keep" or "drop"'
+        : `encoding.rules.spaces is ${previewValue(rules.spaces)}, but white space is kept or dropped at the character level only (null at the word level)`,
+    );
   }
   const both = rules.collapse.find((t) => rules.drop.includes(t));
   if (both !== undefined) throw bad('encoding.rules.collapse', `encoding.rules.collapse: "${both}" is also in encoding.rules.drop; a token type is either dropped or collapsed`);

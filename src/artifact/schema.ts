@@ -3,12 +3,16 @@ import { TOKEN_TYPES } from '../rules/TextRules.js';
 
 /** The `format` member every lexicon file carries. */
 export const LEXICON_FORMAT = 'lexlock.lexicon';
-/** The lexicon file format version this lexlock writes; bumped on any incompatible change. */
-export const FORMAT_VERSION = 1;
+/**
+ * The lexicon file format version this lexlock writes; bumped on any incompatible change. Version 2:
+ * the shape's ends are `start`/`end` and the rules say what the character level does with white space
+ * (`spaces`). Version 1 files are refused with a request to rebuild.
+ */
+export const FORMAT_VERSION = 2;
 
 const count = z.number().check(z.int(), z.minimum(0));
 const share = z.number().check(z.minimum(0), z.maximum(1));
-const side = z.enum(['pre', 'post']);
+const end = z.enum(['start', 'end']);
 
 /** Text rules as stored in a lexicon. */
 export const rulesSchema = z.strictObject({
@@ -17,6 +21,7 @@ export const rulesSchema = z.strictObject({
   case: z.enum(['lower', 'keep']),
   drop: z.array(z.enum(TOKEN_TYPES)),
   collapse: z.array(z.enum(TOKEN_TYPES)),
+  spaces: z.nullable(z.enum(['keep', 'drop'])),
   tokenizer: z.string().check(z.minLength(1)),
 });
 
@@ -30,8 +35,8 @@ export const MAX_SHAPE_LENGTH = 2 ** 20;
 /** Shape as stored in a lexicon. */
 export const shapeSchema = z.strictObject({
   length: z.number().check(z.int(), z.minimum(1), z.maximum(MAX_SHAPE_LENGTH)),
-  pad: side,
-  cut: side,
+  pad: end,
+  cut: end,
 });
 
 /** Everything that decides an id, and nothing else: the part the fingerprint covers. */
@@ -66,6 +71,8 @@ export const fitSchema = z.strictObject({
   labels: z.array(z.strictObject({ label: z.string(), documents: count, tokens: count })),
   coverage: z.array(z.strictObject({ cap: count, share })),
   truncation: z.nullable(z.strictObject({ length: count, truncatedDocuments: count, droppedTokens: count })),
+  /** The group of equal counts the cap cut through (kept in part by string order), or null. */
+  capTie: z.nullable(z.strictObject({ cap: count, count: count, tokens: count, kept: count, left: count, below: count, above: count })),
   /** A Bloom filter of every token the corpus had (see SeenTokens), or null for very large vocabularies. */
   seen: z.nullable(z.strictObject({ bits: z.string().check(z.regex(/^[A-Za-z0-9+/]+={0,2}$/)), hashes: z.number().check(z.int(), z.minimum(1), z.maximum(16)), types: count })),
 });
@@ -73,7 +80,7 @@ export const fitSchema = z.strictObject({
 /** A probe text and the tokens it gave when the lexicon was built. */
 export const canarySchema = z.strictObject({ text: z.string(), tokens: z.array(z.string()) });
 
-/** The whole lexicon file, format version 1. */
+/** The whole lexicon file, format version 2. */
 export const lexiconFileSchema = z.strictObject({
   format: z.literal(LEXICON_FORMAT),
   formatVersion: z.literal(FORMAT_VERSION),

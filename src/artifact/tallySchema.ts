@@ -3,14 +3,17 @@ import { rulesSchema } from './schema.js';
 
 /** The `format` member every tally file carries. */
 export const TALLY_FORMAT = 'lexlock.tally';
-/** The tally file format version this lexlock writes; bumped on any incompatible change. */
-export const TALLY_FORMAT_VERSION = 1;
+/**
+ * The tally file format version this lexlock writes; bumped on any incompatible change. Version 2: the
+ * rules carry `spaces` (what the character level does with white space).
+ */
+export const TALLY_FORMAT_VERSION = 2;
 
 const count = z.number().check(z.int(), z.minimum(0));
 const positive = z.number().check(z.int(), z.minimum(1));
 
 /**
- * A tally file, format version 1: the counts of one corpus part, mergeable by addition.
+ * A tally file, format version 2: the counts of one corpus part, mergeable by addition.
  * Tokens and labels are array entries, never object keys, so `__proto__` is a token like any other.
  */
 export const tallyFileSchema = z.strictObject({

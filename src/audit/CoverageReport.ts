@@ -1,3 +1,4 @@
+import type { CapTie, WholeCaps } from '../lexicon/capTie.js';
 import type { Shape } from '../lexicon/Shape.js';
 import type { LengthSummary } from '../tally/nearestRank.js';
 
@@ -20,6 +21,13 @@ export interface Suggestions {
   capFor90: number;
   capFor95: number;
   capFor99: number;
+  /**
+   * Around each cap above, the nearest caps that keep whole counts (`below` = `above` = the cap when
+   * it does already): a cap inside a group of equal counts keeps part of it by string order.
+   */
+  wholeCapsFor90: WholeCaps;
+  wholeCapsFor95: WholeCaps;
+  wholeCapsFor99: WholeCaps;
   lengthFor90: number;
   lengthFor95: number;
   lengthFor99: number;
@@ -73,6 +81,12 @@ export interface CoverageReport {
   lengthHistogram: Array<{ length: number; documents: number }>;
   /** The lexicon audited against. */
   lexicon: { fingerprint: string; tokens: number; size: number; reserved: number };
+  /**
+   * The group of equal counts the lexicon's cap cut through in the corpus it was built from (this
+   * corpus with `--cap`), kept in part by string order; null when the cap kept whole counts or the
+   * lexicon has no fit record.
+   */
+  capTie: CapTie | null;
   /** Present when the lexicon carries a fit record (a lexicon file, not one frozen for this audit). */
   drift?: Drift;
 }

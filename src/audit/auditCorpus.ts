@@ -73,6 +73,7 @@ export function auditReport(counts: AuditCounts, lexicon: Lexicon, options: Audi
     coverage: coverageCurve(rankedCounts, tally.tokens, [chosenCap]),
     lengthHistogram: [...tally.lengths.entries()].sort((a, b) => a[0] - b[0]).map(([l, documents]) => ({ length: l, documents })),
     lexicon: { fingerprint: lexicon.fingerprint, tokens: lexicon.encoding.tokens.length, size: lexicon.size, reserved: lexicon.encoding.layout.reserved },
+    capTie: lexicon.fit?.capTie ?? null,
   };
   if ((options.drift ?? true) && lexicon.fit !== null) {
     report.drift = drift(lexicon.fit, {

@@ -31,7 +31,7 @@ export function compareLexicons(a: Lexicon, b: Lexicon, options: CompareOptions 
   return {
     sameFingerprint: a.fingerprint === b.fingerprint,
     fingerprints: { a: a.fingerprint, b: b.fingerprint },
-    rules: memberDifferences(ea.rules, eb.rules, ['level', 'unicode', 'case', 'drop', 'collapse', 'tokenizer']),
+    rules: memberDifferences(ea.rules, eb.rules, ['level', 'unicode', 'case', 'drop', 'collapse', 'spaces', 'tokenizer']),
     layout: memberDifferences(ea.layout, eb.layout, ['oov', 'reserved']),
     shape: memberDifferences(ea, eb, ['shape']).length === 0 ? null : { a: ea.shape, b: eb.shape },
     tokens: tokens.tokens,

@@ -1,3 +1,4 @@
+import { wholeCapsAround } from '../lexicon/capTie.js';
 import { nearestRank } from '../tally/nearestRank.js';
 import type { Suggestions } from './CoverageReport.js';
 
@@ -16,12 +17,22 @@ export function capForShare(rankedCounts: readonly number[], total: number, perc
   return rankedCounts.length;
 }
 
-/** Caps for 90/95/99 % of token occurrences and lengths for 90/95/99 % of documents. */
+/**
+ * Caps for 90/95/99 % of token occurrences (with the nearest caps around each that keep whole counts)
+ * and lengths for 90/95/99 % of documents.
+ */
 export function suggest(rankedCounts: readonly number[], total: number, lengths: ReadonlyMap<number, number>): Suggestions {
+  const capFor90 = capForShare(rankedCounts, total, 90);
+  const capFor95 = capForShare(rankedCounts, total, 95);
+  const capFor99 = capForShare(rankedCounts, total, 99);
+  const whole = (cap: number) => wholeCapsAround(rankedCounts.length, (i) => rankedCounts[i] as number, cap);
   return {
-    capFor90: capForShare(rankedCounts, total, 90),
-    capFor95: capForShare(rankedCounts, total, 95),
-    capFor99: capForShare(rankedCounts, total, 99),
+    capFor90,
+    capFor95,
+    capFor99,
+    wholeCapsFor90: whole(capFor90),
+    wholeCapsFor95: whole(capFor95),
+    wholeCapsFor99: whole(capFor99),
     lengthFor90: nearestRank(lengths, 90),
     lengthFor95: nearestRank(lengths, 95),
     lengthFor99: nearestRank(lengths, 99),

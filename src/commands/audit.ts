@@ -1,7 +1,8 @@
+import { describeShape } from '../lexicon/Shape.js';
 import type { CoverageReport } from '../audit/CoverageReport.js';
 import { renderReport } from '../audit/report/renderReport.js';
 import { readCorpus } from '../corpus/readCorpus.js';
-import { writeFileAtomic } from '../files/atomicWrite.js';
+import { writeWhole } from '../files/writeWhole.js';
 import { loadLexicon } from '../files/loadLexicon.js';
 import { assertWritable } from '../files/refuseOverwrite.js';
 import { freeze } from '../lexicon/freeze.js';
@@ -28,9 +29,9 @@ per label, the caps and lengths that would cover 90/95/99 %, the most frequent O
   --lexicon FILE        audit held-out or live data against the lexicon a model was trained with
   --cap N               or: count the corpus, keep N tokens, and audit it against itself
   --min-count N         with --cap: drop tokens seen fewer than N times (default 1)
-  --level, --case, --unicode, --drop, --collapse   with --cap: text rules as in lexlock build
+  --level, --case, --unicode, --spaces, --drop, --collapse   with --cap: text rules as in lexlock build
   --length L            count truncation and padding at length L (default: the lexicon's shape)
-  --pad pre|post, --cut pre|post   with --length (default post)
+  --pad start|end, --cut start|end   with --length: where the zeros go, which end a long document loses (default end, end)
   --text FIELD, --label FIELD, --bad-text fail|replace|skip, --record-limit MiB   as in lexlock build
   --json                print the report as one JSON object
   --report FILE.html    also write a self-contained HTML page with the charts (--force to overwrite)
@@ -52,7 +53,7 @@ function shareFlag(args: ParsedArgs, name: string): number | null {
   return share;
 }
 
-const RULE_FLAG_NAMES = ['level', 'case', 'unicode', 'drop', 'collapse', 'min-count'];
+const RULE_FLAG_NAMES = ['level', 'case', 'unicode', 'spaces', 'drop', 'collapse', 'min-count'];
 
 /** `lexlock audit`: exit 0, 1 for bad input, 2 for bad usage, 3 when a threshold is crossed. */
 export async function audit(argv: readonly string[], io: Io): Promise<number> {
@@ -123,12 +124,12 @@ export async function audit(argv: readonly string[], io: Io): Promise<number> {
 
   if (reportPath !== undefined) {
     const settings: Record<string, string> = lexiconPath === undefined ? { cap: String(cap) } : { lexicon: lexiconPath };
-    if (shape !== null) settings.length = `${shape.length} (pad ${shape.pad}, cut ${shape.cut})`;
+    if (shape !== null) settings.length = describeShape(shape);
     if (options.label !== undefined) settings.label = options.label;
     if (gates.maxOov !== null) settings['max OOV'] = String(gates.maxOov);
     if (gates.maxTruncated !== null) settings['max truncated'] = String(gates.maxTruncated);
     const html = renderReport(report, { corpus, lexiconFile: lexiconPath ?? null, settings, generatedAt: new Date().toISOString(), lexlockVersion: VERSION });
-    await writeFileAtomic(reportPath, html);
+    await writeWhole(reportPath, html);
   }
   const crossed = crossedGates(report, gates);
   if (args.switches.has('json')) {

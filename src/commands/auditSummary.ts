@@ -1,4 +1,6 @@
 import type { CoverageReport } from '../audit/CoverageReport.js';
+import { describeCapTie } from '../audit/describeCapTie.js';
+import type { WholeCaps } from '../lexicon/capTie.js';
 import type { Paint } from './colour.js';
 import { count, counted, percent } from './format.js';
 
@@ -57,7 +59,12 @@ export function auditSummary(report: CoverageReport, heading: string, gates: Gat
       `${counted(report.truncatedDocuments, 'document')} cut (${cutBad ? paint.red(share) : share}), ${counted(report.droppedTokens, 'token')} dropped, ${counted(report.paddingTokens, 'padding token')}${mark(cutBad, gates.maxTruncated, '--max-truncated')}`,
     ]);
   }
-  rows.push(['caps that cover', `90 % of tokens: ${count(s.capFor90)}, 95 %: ${count(s.capFor95)}, 99 %: ${count(s.capFor99)} (lexicon has ${count(report.lexicon.tokens - report.lexicon.reserved)})`]);
+  const cover = (cap: number, whole: WholeCaps) => (whole.below === whole.above ? count(cap) : `${count(cap)} (whole counts: ${count(whole.below)} or ${count(whole.above)})`);
+  rows.push([
+    'caps that cover',
+    `90 % of tokens: ${cover(s.capFor90, s.wholeCapsFor90)}, 95 %: ${cover(s.capFor95, s.wholeCapsFor95)}, 99 %: ${cover(s.capFor99, s.wholeCapsFor99)} (lexicon has ${count(report.lexicon.tokens - report.lexicon.reserved)})`,
+  ]);
+  if (report.capTie !== null) rows.push(['lexicon cap', describeCapTie(report.capTie)]);
   rows.push(['lengths that fit', `90 % of documents: ${s.lengthFor90}, 95 %: ${s.lengthFor95}, 99 %: ${s.lengthFor99}`]);
   if (report.topOov.length > 0) {
     rows.push(['top OOV', report.topOov.slice(0, 10).map((t) => `${t.token} (${count(t.count)})`).join(', ')]);

@@ -1,4 +1,4 @@
-import { freeze } from '../lexicon/freeze.js';
+import { DEFAULT_CAP, freeze } from '../lexicon/freeze.js';
 import type { Lexicon } from '../lexicon/Lexicon.js';
 import type { EncodeStats } from '../pipeline/encodeCorpus.js';
 import { tallyAndRecord, type RecordedTally } from '../pipeline/tallyAndRecord.js';
@@ -28,16 +28,19 @@ Counts the tokens of a corpus and writes a fingerprinted lexicon file. Given a .
 lexlock tally or merge) it freezes those counts instead; the rule and corpus flags are refused then.
 
   -o, --output FILE     where to write the lexicon (refused if it exists, unless --force)
-  --cap N               keep the N most frequent tokens (default 20000)
+  --cap N               keep the N most frequent tokens (default 30000)
   --min-count N         drop tokens seen fewer than N times (default 1)
   --oov first|last      OOV id 1 (default) or the id after the last token
   --reserve TOKEN       a token that takes an id right after the specials (repeatable)
   --level word|char     word tokens (default) or characters
+  --spaces keep|drop    --level char: each run of white space is one ' ' token (keep, default) or none
   --case lower|keep     lower-case the text (default) or keep case
   --unicode NFKC|NFC|none   Unicode normalization (default NFKC)
   --drop TYPES          leave out token types, e.g. punctuation,emoji
   --collapse TYPES      one placeholder per type, e.g. number,url -> <number>, <url>
-  --length L            store a fixed length; with --pad pre|post and --cut pre|post (default post)
+  --length L            store a fixed length: every row has L ids
+  --pad start|end       with --length: where the padding zeros go in a short row (default end)
+  --cut start|end       with --length: which end of a long document loses tokens (default end)
   --text FIELD          text column or member for .csv/.tsv/.jsonl (default text)
   --label FIELD         label column or member (folders: the first folder is the label)
   --bad-text fail|replace|skip   what to do with invalid UTF-8 (default fail)
@@ -51,8 +54,6 @@ lexlock tally or merge) it freezes those counts instead; the rule and corpus fla
   -q, --quiet           no progress on stderr
 `;
 
-/** Default vocabulary cap of `lexlock build`. */
-export const DEFAULT_CAP = 20000;
 
 /** `lexlock build`: corpus -> lexicon file. */
 export async function build(argv: readonly string[], io: Io): Promise<number> {

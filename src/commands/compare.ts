@@ -2,7 +2,7 @@ import { LexlockError } from '../LexlockError.js';
 import { compareLexicons } from '../audit/compareLexicons.js';
 import type { LexiconComparison } from '../audit/compare/LexiconComparison.js';
 import { loadLexicon } from '../files/loadLexicon.js';
-import type { Shape } from '../lexicon/Shape.js';
+import { describeShape, type Shape } from '../lexicon/Shape.js';
 import { count, pairs, percent } from './format.js';
 import type { Io } from './Io.js';
 import { listFlag, parseArgs, positionals } from './parseArgs.js';
@@ -28,12 +28,13 @@ function quoted(items: readonly string[], total: number): string {
 }
 
 function shapeText(shape: Shape | null): string {
-  return shape === null ? 'none' : `length ${shape.length}, pad ${shape.pad}, cut ${shape.cut}`;
+  return shape === null ? 'none' : describeShape(shape);
 }
 
-type Value = string | number | readonly string[];
+type Value = string | number | readonly string[] | null;
 
 function valueText(value: Value): string {
+  if (value === null) return 'none';
   if (typeof value === 'number') return String(value);
   if (typeof value === 'string') return value;
   return value.length === 0 ? 'none' : value.join(',');

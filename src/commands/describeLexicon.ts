@@ -1,4 +1,6 @@
 import type { Lexicon } from '../lexicon/Lexicon.js';
+import { describeCapTie } from '../audit/describeCapTie.js';
+import { describeShape } from '../lexicon/Shape.js';
 import { count, pairs, percent } from './format.js';
 
 /** The summary lines build and verify print about a lexicon. */
@@ -11,15 +13,16 @@ export function describeLexicon(lexicon: Lexicon): Array<[string, string]> {
       'rules',
       `${r.level} level, ${r.unicode}, case ${r.case}, ${r.tokenizer}` +
         (r.drop.length > 0 ? `, drop ${r.drop.join(',')}` : '') +
-        (r.collapse.length > 0 ? `, collapse ${r.collapse.join(',')}` : ''),
+        (r.collapse.length > 0 ? `, collapse ${r.collapse.join(',')}` : '') +
+        (r.spaces === null ? '' : `, spaces ${r.spaces}`),
     ],
     [
       'vocabulary',
       `${count(encoding.tokens.length - encoding.layout.reserved)} tokens` +
         (encoding.layout.reserved > 0 ? ` + ${encoding.layout.reserved} reserved` : '') +
-        `; padding 0, OOV ${lexicon.oovId}; input dimension ${count(lexicon.size)}`,
+        `; padding 0, OOV ${lexicon.oovId}; ids 0 to ${count(lexicon.size - 1)} (${count(lexicon.size)} rows for an embedding)`,
     ],
-    ['shape', encoding.shape === null ? 'none (variable length)' : `length ${encoding.shape.length}, pad ${encoding.shape.pad}, cut ${encoding.shape.cut}`],
+    ['shape', encoding.shape === null ? 'none (variable length)' : describeShape(encoding.shape)],
     ['labels', encoding.labels === null ? 'none' : `${encoding.labels.length}: ${encoding.labels.slice(0, 12).join(', ')}${encoding.labels.length > 12 ? ', …' : ''}`],
   ];
   if (fit !== null) {
@@ -27,6 +30,7 @@ export function describeLexicon(lexicon: Lexicon): Array<[string, string]> {
     rows.push(['OOV on corpus', `${percent(fit.oovRate)} of tokens (${count(fit.oovTokens)})`]);
     const l = fit.length;
     rows.push(['tokens/document', `min ${l.min}, p50 ${l.p50}, p90 ${l.p90}, p95 ${l.p95}, p99 ${l.p99}, max ${l.max}`]);
+    if (fit.capTie !== null) rows.push(['cap', describeCapTie(fit.capTie)]);
     if (fit.truncation !== null) {
       const t = fit.truncation;
       rows.push(['cut at length', `${count(t.truncatedDocuments)} documents (${percent(fit.documents === 0 ? 0 : t.truncatedDocuments / fit.documents)}), ${count(t.droppedTokens)} tokens dropped`]);

@@ -1,3 +1,4 @@
+import { describeShape } from '../lexicon/Shape.js';
 import { LexlockError } from '../LexlockError.js';
 import { readCorpus } from '../corpus/readCorpus.js';
 import { loadLexicon } from '../files/loadLexicon.js';
@@ -18,7 +19,7 @@ Turns every document into ids with a lexicon, in corpus order.
   --lexicon FILE        the lexicon to encode with (checked: schema, fingerprint, canaries)
   -o, --output OUT      OUT ending in .jsonl: one line a document {"ids", "length", "label"};
                         anything else: a folder with ids.npy, lengths.npy, labels.npy, manifest.json
-  --length L            fixed length when the lexicon has no shape (with --pad/--cut, default post)
+  --length L            fixed length when the lexicon has no shape (with --pad/--cut start|end, default end)
   --text FIELD          text column or member (default: as the lexicon was built, else text)
   --label FIELD         label column or member (default: as the lexicon was built)
   --bad-text fail|replace|skip   what to do with invalid UTF-8 (default fail)
@@ -49,7 +50,7 @@ export async function encode(argv: readonly string[], io: Io): Promise<number> {
     const s = lexicon.shape;
     throw new LexlockError(
       'USAGE_BAD_VALUE',
-      `--length: ${lexiconPath} already fixes the shape (length ${s.length}, pad ${s.pad}, cut ${s.cut}) as part of its fingerprint; drop --length, or build a lexicon without --length`,
+      `--length: ${lexiconPath} already fixes the shape (${describeShape(s)}) as part of its fingerprint; drop --length, or build a lexicon without --length`,
       { field: '--length' },
     );
   }

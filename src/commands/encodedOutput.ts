@@ -2,12 +2,12 @@ import { mkdir, readdir, rm } from 'node:fs/promises';
 import { dirname, join } from 'node:path';
 import { LexlockError } from '../LexlockError.js';
 import type { CorpusStats } from '../corpus/CorpusStats.js';
-import { writeFileAtomic } from '../files/atomicWrite.js';
+import { writeWhole } from '../files/writeWhole.js';
 import { assertWritable } from '../files/refuseOverwrite.js';
 import { assertNotSymlink } from '../files/refuseSymlink.js';
 import { removeStaleTemps } from '../files/removeStaleTemps.js';
 import type { Lexicon } from '../lexicon/Lexicon.js';
-import type { Shape } from '../lexicon/Shape.js';
+import { describeShape, type Shape } from '../lexicon/Shape.js';
 import { JsonlWriter } from '../output/JsonlWriter.js';
 import { NpyWriter } from '../output/NpyWriter.js';
 import type { EncodeStats, RowSink } from '../pipeline/encodeCorpus.js';
@@ -70,7 +70,7 @@ export function encodedSummary(stats: EncodeStats, shape: Shape | null, source: 
   const { lexicon, lexiconPath, readStats } = source;
   const rows: Array<[string, string]> = [
     ['lexicon', `${lexiconPath} (${lexicon.fingerprint})`],
-    ['rows', `${count(stats.documents)}${shape === null ? ', variable length' : ` x ${shape.length} (pad ${shape.pad}, cut ${shape.cut})`}`],
+    ['rows', `${count(stats.documents)}${shape === null ? ', variable length' : ` x ${shape.length} (${describeShape(shape)})`}`],
     ['OOV', `${percent(stats.tokens === 0 ? 0 : stats.oovTokens / stats.tokens)} of ${count(stats.tokens)} tokens`],
   ];
   if (shape !== null) {
@@ -127,7 +127,7 @@ async function npyOutput(folder: string, shape: Shape, manifest: (stats: EncodeS
       if (labels !== null) await (labels as NpyWriter).finish();
       // An unlabelled run over a labelled one's folder (--force) must not leave the old labels beside it.
       else await rm(join(folder, 'labels.npy'), { force: true });
-      await writeFileAtomic(join(folder, 'manifest.json'), `${JSON.stringify(manifest(stats, labels !== null), null, 2)}\n`);
+      await writeWhole(join(folder, 'manifest.json'), `${JSON.stringify(manifest(stats, labels !== null), null, 2)}\n`);
     },
     async abort() {
       await ids.abort();

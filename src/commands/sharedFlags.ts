@@ -1,5 +1,5 @@
 import { resolveRules, TOKEN_TYPES, type TextRules } from '../rules/TextRules.js';
-import type { Shape } from '../lexicon/Shape.js';
+import { SHAPE_ENDS, type Shape, type ShapeEnd } from '../lexicon/Shape.js';
 import { LexlockError } from '../LexlockError.js';
 import { hasFields, type CorpusKind } from '../corpus/corpusKind.js';
 import { readCorpus } from '../corpus/readCorpus.js';
@@ -37,6 +37,7 @@ export const RULE_FLAGS: Record<string, FlagSpec> = {
   level: { kind: 'value' },
   case: { kind: 'value' },
   unicode: { kind: 'value' },
+  spaces: { kind: 'value' },
   drop: { kind: 'value', repeat: true },
   collapse: { kind: 'value', repeat: true },
 };
@@ -89,7 +90,14 @@ export function rulesFromFlags(args: ParsedArgs): TextRules {
   const level = choiceFlag(args, 'level', ['word', 'char'] as const);
   const letterCase = choiceFlag(args, 'case', ['lower', 'keep'] as const);
   const unicode = choiceFlag(args, 'unicode', ['NFKC', 'NFC', 'none'] as const);
+  const spaces = choiceFlag(args, 'spaces', ['keep', 'drop'] as const);
+  if (spaces !== undefined && level !== 'char') {
+    throw new LexlockError('USAGE_BAD_VALUE', '--spaces: white space is kept or dropped at --level char only (words never hold it); remove --spaces or add --level char', {
+      field: '--spaces',
+    });
+  }
   return resolveRules({
+    ...(spaces === undefined ? {} : { spaces }),
     ...(level === undefined ? {} : { level }),
     ...(letterCase === undefined ? {} : { case: letterCase }),
     ...(unicode === undefined ? {} : { unicode }),
@@ -98,11 +106,23 @@ export function rulesFromFlags(args: ParsedArgs): TextRules {
   });
 }
 
-/** The shape from --length/--pad/--cut (pad and cut default to post), or null without --length. */
+/** What each end means for --pad and --cut, for the message that refuses any other value. */
+const END_MEANING = {
+  pad: 'start puts the padding zeros before the tokens, end after them',
+  cut: 'start makes a long document lose its first tokens, end its last',
+} as const;
+
+function endFlag(args: ParsedArgs, name: 'pad' | 'cut'): ShapeEnd | undefined {
+  const raw = valueOf(args, name);
+  if (raw === undefined || (SHAPE_ENDS as readonly string[]).includes(raw)) return raw as ShapeEnd | undefined;
+  throw new LexlockError('USAGE_BAD_VALUE', `--${name}: "${raw}" is not an end of a row; use start or end (${END_MEANING[name]})`, { field: `--${name}` });
+}
+
+/** The shape from --length/--pad/--cut (pad and cut default to end), or null without --length. */
 export function shapeFromFlags(args: ParsedArgs): Shape | null {
   const length = wholeNumberFlag(args, 'length', 1);
-  const pad = choiceFlag(args, 'pad', ['pre', 'post'] as const);
-  const cut = choiceFlag(args, 'cut', ['pre', 'post'] as const);
+  const pad = endFlag(args, 'pad');
+  const cut = endFlag(args, 'cut');
   if (length === undefined) {
     if (pad !== undefined || cut !== undefined) {
       const flag = pad !== undefined ? '--pad' : '--cut';
@@ -110,7 +130,7 @@ export function shapeFromFlags(args: ParsedArgs): Shape | null {
     }
     return null;
   }
-  return { length, pad: pad ?? 'post', cut: cut ?? 'post' };
+  return { length, pad: pad ?? 'end', cut: cut ?? 'end' };
 }
 
 /** The corpus fields a lexicon or tally records: the text field for kinds with fields, and the label field. */

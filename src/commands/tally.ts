@@ -18,6 +18,7 @@ Counts one part of a corpus and writes a tally file that lexlock merge adds up a
 
   -o, --output FILE     where to write the tally; must end in .tally (refused if it exists, unless --force)
   --level word|char     word tokens (default) or characters
+  --spaces keep|drop    --level char: each run of white space is one ' ' token (keep, default) or none
   --case lower|keep     lower-case the text (default) or keep case
   --unicode NFKC|NFC|none   Unicode normalization (default NFKC)
   --drop TYPES          leave out token types, e.g. punctuation,emoji

@@ -10,7 +10,9 @@ export const VERIFY_HELP = `lexlock verify <lexicon.json> [--json]
 Checks a lexicon file: format version, schema, fingerprint, duplicate tokens, and that every canary
 still tokenizes as it did when the lexicon was built. Prints the fingerprint and a summary.
 
-  --json    print {"ok", "fingerprint", "formatVersion", "tokens", "size", "canaries"} as JSON
+  --json    print {"ok", "fingerprint", "formatVersion", "tokens", "size", "labels", "canaries"} as JSON:
+            tokens in the lexicon (reserved included), size = ids 0 to size-1 (rows for an embedding),
+            labels (0 without labels), canaries checked
 `;
 
 /** `lexlock verify`: exit 0 when the lexicon is sound, 1 (with the reason) when not. */

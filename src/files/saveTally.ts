@@ -2,7 +2,7 @@ import { mkdir } from 'node:fs/promises';
 import { dirname } from 'node:path';
 import type { TallyFile } from '../tally/tallyFile.js';
 import { tallyFileLines } from '../tally/tallyFileText.js';
-import { openAtomic } from './atomicWrite.js';
+import { openAtomic } from './writeWhole.js';
 import { assertWritable } from './refuseOverwrite.js';
 
 /** Options of {@link saveTally}. */

@@ -86,7 +86,7 @@ export class Lexicon {
     this.labelIds = new Map((encoding.labels ?? []).map((label, i) => [label, i]));
   }
 
-  /** The model's input dimension: padding + OOV + every token (largest id + 1). */
+  /** How many ids there are (padding + OOV + every token = largest id + 1): the rows an embedding needs. */
   get size(): number {
     return this.encoding.tokens.length + 2;
   }
@@ -162,7 +162,7 @@ export class Lexicon {
    * Encodes one text: variable length, or shaped (the lexicon's shape by default, or `options.shape`).
    * Tokens are looked up where they lie in the text, so encoding ASCII text whose chunks are plain or
    * met before allocates only the returned ids (see {@link scanTokens}); cut tokens are never looked up.
-   * @example lexicon.encode('late again', { shape: { length: 4, pad: 'pre', cut: 'post' } }) // [0, 0, 17, 93]
+   * @example lexicon.encode('late again', { shape: { length: 4, pad: 'start', cut: 'end' } }) // [0, 0, 17, 93]
    */
   encode(text: string, options?: EncodeOptions): Int32Array {
     const shape = options?.shape === undefined ? this.encoding.shape : options.shape;
@@ -210,7 +210,7 @@ export class Lexicon {
     const given = options.shape === undefined ? this.encoding.shape : options.shape;
     let longest = 1;
     for (const row of rowsIds) if (row.length > longest) longest = row.length;
-    const shape: Shape = given ?? { length: longest, pad: 'post', cut: 'post' };
+    const shape: Shape = given ?? { length: longest, pad: 'end', cut: 'end' };
     const rows = rowsIds.length;
     const ids = new Int32Array(rows * shape.length);
     const lengths = new Int32Array(rows);

@@ -5,13 +5,14 @@ import { summarizeLengths } from '../tally/nearestRank.js';
 import type { Tally } from '../tally/Tally.js';
 import { VERSION } from '../version.js';
 import { Lexicon } from './Lexicon.js';
+import { capTie } from './capTie.js';
 import { rankTokens } from './rankTokens.js';
 import { SeenTokens } from './SeenTokens.js';
 import { checkShape, type Shape } from './Shape.js';
 
 /** How a tally becomes a lexicon. Every member is optional. */
 export interface FreezeOptions {
-  /** Keep at most this many ranked tokens; null or absent keeps all. */
+  /** Keep at most this many ranked tokens (default {@link DEFAULT_CAP}); null keeps all. */
   cap?: number | null;
   /** Drop tokens counted fewer times (default 1). */
   minCount?: number;
@@ -33,8 +34,11 @@ export interface FreezeOptions {
   now?: Date;
 }
 
+/** The vocabulary cap when none is given, in the library and on the command line. */
+export const DEFAULT_CAP = 30000;
+
 /** Caps at which the fit records coverage (besides the chosen cap and all tokens). */
-const COVERAGE_CAPS = [10, 100, 1000, 2000, 5000, 10000, 20000, 50000, 100000, 200000, 500000, 1000000];
+const COVERAGE_CAPS = [10, 100, 1000, 2000, 5000, 10000, 20000, 30000, 50000, 100000, 200000, 500000, 1000000];
 
 function wholeNumber(value: number, name: string, min: number): number {
   if (!Number.isSafeInteger(value) || value < min) {
@@ -46,10 +50,10 @@ function wholeNumber(value: number, name: string, min: number): number {
 /**
  * Freezes a tally into a lexicon (encoding contract, rule 4): drop tokens under `minCount`, rank by
  * count then string order, keep the first `cap`; id 0 is padding, OOV first (1) or last.
- * @example const lexicon = freeze(tally, { cap: 20000, shape: { length: 80, pad: 'pre', cut: 'pre' } });
+ * @example const lexicon = freeze(tally, { cap: 12000, shape: { length: 96, pad: 'end', cut: 'start' } });
  */
 export function freeze(tally: Tally, options: FreezeOptions = {}): Lexicon {
-  const cap = options.cap === undefined || options.cap === null ? null : wholeNumber(options.cap, 'cap', 0);
+  const cap = options.cap === null ? null : wholeNumber(options.cap ?? DEFAULT_CAP, 'cap', 0);
   const minCount = wholeNumber(options.minCount ?? 1, 'minCount', 1);
   const oov = options.oov ?? 'first';
   if (oov !== 'first' && oov !== 'last') {
@@ -68,6 +72,7 @@ export function freeze(tally: Tally, options: FreezeOptions = {}): Lexicon {
   const allRanked = rankTokens(tally.entries(), 1, cap === null ? Infinity : cap + reservedSet.size);
   const ranked = allRanked.filter(([t, n]) => n >= minCount && !reservedSet.has(t));
   const kept = cap === null ? ranked : ranked.slice(0, cap);
+  const tie = cap === null ? null : capTie(ranked.length, (i) => (ranked[i] as [string, number])[1], cap);
   const withLabels = options.labels ?? true;
   const labels = withLabels && tally.labels.size > 0 ? [...tally.labels.keys()].sort() : null;
 
@@ -128,6 +133,7 @@ export function freeze(tally: Tally, options: FreezeOptions = {}): Lexicon {
       .map(([label, c]) => ({ label, documents: c.documents, tokens: c.tokens })),
     coverage,
     truncation,
+    capTie: tie,
     seen: SeenTokens.of(tally.tokenList(), tally.types)?.toJSON() ?? null,
   };
 

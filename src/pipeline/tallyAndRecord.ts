@@ -47,7 +47,7 @@ class LabelNumbers {
  * the file with `discard` if it does not encode.
  * @example
  * const recorded = await tallyAndRecord(readCorpus('train.csv', { label: 'topic' }), resolveRules(), 'train.numbers.tmp');
- * const lexicon = freeze(recorded.tally, { cap: 20000, snippets: recorded.snippets, shape: { length: 80, pad: 'pre', cut: 'post' } });
+ * const lexicon = freeze(recorded.tally, { cap: 12000, snippets: recorded.snippets, shape: { length: 96, pad: 'start', cut: 'end' } });
  * await recorded.encode(lexicon, lexicon.shape, { row: (ids) => void train.push([...ids]) });
  */
 export async function tallyAndRecord(

@@ -45,7 +45,7 @@ export function snippetKeeper(): { snippets: string[]; see: (text: string) => vo
  * `threads` > 1 the documents are tokenized in worker threads in batches; the result is identical.
  * @example
  * const { tally, snippets } = await tallyCorpus(readCorpus('reviews.csv', { label: 'topic' }), resolveRules(), { threads: 4 });
- * const lexicon = freeze(tally, { cap: 20000, snippets });
+ * const lexicon = freeze(tally, { cap: 12000, snippets });
  */
 export async function tallyCorpus(
   documents: AsyncIterable<string | LabelledText> | Iterable<string | LabelledText>,

@@ -28,7 +28,7 @@ export const WORD_TOKENIZER = 'wink-tokenizer@5.3.0';
 export const CHAR_TOKENIZER = 'lexlock-chars@1';
 
 /**
- * Everything that decides how text becomes tokens (encoding contract, rule 1 and 2).
+ * Everything that decides how text becomes tokens (encoding contract, rules 1 and 2).
  * `drop` and `collapse` apply to the word level only and are kept sorted.
  */
 export interface TextRules {
@@ -39,12 +39,20 @@ export interface TextRules {
   drop: TokenType[];
   /** Token types replaced by one placeholder token each, `<number>`, `<url>`… */
   collapse: TokenType[];
+  /**
+   * Character level only (null at the word level): `keep` makes each run of white space one token, a
+   * single space; `drop` leaves white space out.
+   */
+  spaces: 'keep' | 'drop' | null;
   /** `name@version` of the tokenizer the rules were fixed with. */
   tokenizer: string;
 }
 
-/** What a caller may pass: any subset of the rules; the rest take their defaults. */
-export type TextRulesInput = Partial<Omit<TextRules, 'tokenizer'>>;
+/**
+ * What a caller may pass: any subset of the rules; the rest take their defaults (`spaces`: `keep` at
+ * the character level).
+ */
+export type TextRulesInput = Partial<Omit<TextRules, 'tokenizer' | 'spaces'>> & { spaces?: 'keep' | 'drop' };
 
 /** The default rules: word level, NFKC, lower-case, nothing dropped or collapsed. */
 export const DEFAULT_RULES: Readonly<TextRules> = Object.freeze({
@@ -53,6 +61,7 @@ export const DEFAULT_RULES: Readonly<TextRules> = Object.freeze({
   case: 'lower',
   drop: [],
   collapse: [],
+  spaces: null,
   tokenizer: WORD_TOKENIZER,
 });
 
@@ -106,5 +115,22 @@ export function resolveRules(input: TextRulesInput = {}): TextRules {
   if (both.length > 0) {
     throw new LexlockError('BAD_OPTION', `drop/collapse: "${both[0]}" is both dropped and collapsed; choose one`, { field: 'collapse' });
   }
-  return { level, unicode, case: letterCase, drop, collapse, tokenizer: level === 'word' ? WORD_TOKENIZER : CHAR_TOKENIZER };
+  const spaces = input.spaces;
+  if (spaces !== undefined && spaces !== 'keep' && spaces !== 'drop') {
+    throw new LexlockError('BAD_OPTION', `spaces: "${String(spaces)}" is not a space rule; use keep or drop`, { field: 'spaces' });
+  }
+  if (level === 'word' && spaces !== undefined) {
+    throw new LexlockError('BAD_OPTION', 'spaces: white space is kept or dropped at the character level only (the word level never makes a token of it); remove it or use level char', {
+      field: 'spaces',
+    });
+  }
+  return {
+    level,
+    unicode,
+    case: letterCase,
+    drop,
+    collapse,
+    spaces: level === 'word' ? null : (spaces ?? 'keep'),
+    tokenizer: level === 'word' ? WORD_TOKENIZER : CHAR_TOKENIZER,
+  };
 }

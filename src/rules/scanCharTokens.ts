@@ -3,27 +3,39 @@ import { TYPE_CODE, type TokenSpans } from './TokenSpans.js';
 
 /** Character tokens have no type of their own; drop and collapse do not exist at this level. */
 const CHAR_TYPE = TYPE_CODE.word;
+/** The token a run of white space becomes when spaces are kept. */
+const SPACE = ' ';
 
 /**
  * Character-level tokens (encoding contract, rule 2) of `out.text`: every code point that is not white
- * space (the engine's `\s`; none lies outside the first plane), reported to `out` as spans. A lone
- * surrogate is a code point of its own.
- * @example scanCharTokens(out) // out.text 'a b😀' -> 'a', 'b', '😀'
+ * space (the engine's `\s`; none lies outside the first plane) is a token, reported to `out` as a
+ * span; each maximal run of white space is one token, a single U+0020 space, when `spaces` is `keep`,
+ * and nothing when it is `drop`. A lone surrogate is a code point of its own.
+ * @example scanCharTokens(out, 'keep') // out.text 'a \t b😀' -> 'a', ' ', 'b', '😀'
  */
-export function scanCharTokens(out: TokenSpans): void {
+export function scanCharTokens(out: TokenSpans, spaces: 'keep' | 'drop'): void {
   const text = out.text;
   const n = text.length;
+  const keep = spaces === 'keep';
+  let inSpace = false;
   for (let i = 0; i < n; ) {
     const code = text.charCodeAt(i);
     if (code >= 0xd800 && code <= 0xdbff && i + 1 < n) {
       const next = text.charCodeAt(i + 1);
       if (next >= 0xdc00 && next <= 0xdfff) {
         out.span(i, i + 2, CHAR_TYPE);
+        inSpace = false;
         i += 2;
         continue;
       }
     }
-    if (WHITE_SPACE_TABLE[code] !== 1) out.span(i, i + 1, CHAR_TYPE);
+    if (WHITE_SPACE_TABLE[code] !== 1) {
+      out.span(i, i + 1, CHAR_TYPE);
+      inSpace = false;
+    } else if (keep && !inSpace) {
+      out.addString(SPACE);
+      inSpace = true;
+    }
     i += 1;
   }
 }

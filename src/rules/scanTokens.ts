@@ -23,7 +23,7 @@ function isAscii(text: string): boolean {
 export function scanTokens(text: string, rules: TextRules, out: TokenSpans, mayFold: boolean): TokenSpans {
   if (mayFold && isAscii(text)) out.begin(text, rules.case === 'lower', rules);
   else out.begin(normalize(text, rules), false, rules);
-  if (rules.level === 'char') scanCharTokens(out);
+  if (rules.level === 'char') scanCharTokens(out, rules.spaces === 'drop' ? 'drop' : 'keep');
   else scanWordTokens(out);
   return out;
 }

@@ -9,7 +9,7 @@ export interface NamedTallyFile {
   file: TallyFile;
 }
 
-const RULE_MEMBERS = ['level', 'unicode', 'case', 'drop', 'collapse', 'tokenizer'] as const;
+const RULE_MEMBERS = ['level', 'unicode', 'case', 'drop', 'collapse', 'spaces', 'tokenizer'] as const;
 
 function ruleText(rules: TextRules, member: (typeof RULE_MEMBERS)[number]): string {
   const v = rules[member];

@@ -43,6 +43,13 @@ export function tallyFileParse(input: string | object, options: TallyFileParseOp
       `tally format version ${version} needs a newer lexlock; this one (${VERSION}) reads versions up to ${TALLY_FORMAT_VERSION}; upgrade lexlock`,
     );
   }
+  if (version === 1) {
+    throw inputError(
+      'OLD_FORMAT',
+      { ...where, field: 'formatVersion' },
+      `tally format version 1 was written by lexlock 0.1, whose character level dropped white space; this lexlock (${VERSION}) reads version ${TALLY_FORMAT_VERSION}; ${AGAIN}`,
+    );
+  }
   const parsed = tallyFileSchema.safeParse(raw);
   if (!parsed.success) {
     const issues = parsed.error.issues;
@@ -56,7 +63,8 @@ export function tallyFileParse(input: string | object, options: TallyFileParseOp
 
   let rules;
   try {
-    rules = resolveRules({ level: doc.rules.level, unicode: doc.rules.unicode, case: doc.rules.case, drop: doc.rules.drop, collapse: doc.rules.collapse });
+    const { level, unicode, drop, collapse, spaces } = doc.rules;
+    rules = resolveRules({ level, unicode, case: doc.rules.case, drop, collapse, ...(spaces === null ? {} : { spaces }) });
   } catch (e) {
     if (isLexlockError(e)) throw bad(`rules.${e.where.field ?? ''}`, `rules: ${e.message}`);
     throw e;
@@ -65,6 +73,9 @@ export function tallyFileParse(input: string | object, options: TallyFileParseOp
     if (rules[member].join(',') !== doc.rules[member].join(',')) {
       throw bad(`rules.${member}`, `rules.${member} must list distinct token types in string order (${JSON.stringify(rules[member])})`);
     }
+  }
+  if (rules.spaces !== doc.rules.spaces) {
+    throw bad('rules.spaces', `rules.spaces is null, but the character level needs "keep" or "drop"`);
   }
   rules.tokenizer = doc.rules.tokenizer;
   const tally = new Tally(rules);

@@ -16,7 +16,7 @@ function entries(name: string, rows: readonly unknown[], last: boolean): string[
 export function* tallyFileLines(file: TallyFile): Generator<string> {
   const { tally } = file;
   const r = tally.rules;
-  const rules = { level: r.level, unicode: r.unicode, case: r.case, drop: r.drop, collapse: r.collapse, tokenizer: r.tokenizer };
+  const rules = { level: r.level, unicode: r.unicode, case: r.case, drop: r.drop, collapse: r.collapse, spaces: r.spaces, tokenizer: r.tokenizer };
   yield '{\n';
   yield `  "format": ${JSON.stringify(TALLY_FORMAT)},\n`;
   yield `  "formatVersion": ${TALLY_FORMAT_VERSION},\n`;

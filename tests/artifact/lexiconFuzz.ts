@@ -38,7 +38,7 @@ const texts = FERRY_REVIEWS.map((r) => r.text);
 /** A lexicon of every kind: with and without fit, canaries, labels, shape and reserved tokens; OOV first and last. */
 export const BASES: readonly { name: string; lexicon: Lexicon }[] = (() => {
   const shaped = freeze(Tally.fromTexts(FERRY_REVIEWS, resolveRules()), {
-    shape: { length: 8, pad: 'pre', cut: 'post' },
+    shape: { length: 8, pad: 'start', cut: 'end' },
     reserved: ['<start>', '__proto__'],
     snippets: [texts[0] as string],
     source: 'reviews.csv',
@@ -56,7 +56,7 @@ export const BASES: readonly { name: string; lexicon: Lexicon }[] = (() => {
       lexicon: freeze(Tally.fromTexts(FERRY_REVIEWS, resolveRules({ level: 'char', unicode: 'NFC', case: 'keep' })), {
         oov: 'last',
         labels: false,
-        shape: { length: 30, pad: 'post', cut: 'pre' },
+        shape: { length: 30, pad: 'end', cut: 'start' },
         now,
       }),
     },
@@ -233,7 +233,7 @@ export const REPLACEMENTS: readonly (() => Json)[] = [
 ];
 
 /** Strings lexicons hold somewhere: swapping one in keeps the kind and may keep the file valid. */
-const STRINGS = ['word', 'char', 'NFKC', 'NFC', 'none', 'lower', 'keep', 'first', 'last', 'pre', 'post', 'url', 'number', 'punctuation', 'ferry', 'late', '<start>', 'delays', 'praise'];
+const STRINGS = ['word', 'char', 'NFKC', 'NFC', 'none', 'lower', 'keep', 'first', 'last', 'start', 'end', 'url', 'number', 'punctuation', 'ferry', 'late', '<start>', 'delays', 'praise'];
 
 /** A value of the same kind as `old`, near it: the kind of damage a hand edit does. */
 export function nearValue(old: Json, pick: number): Json {

@@ -465,7 +465,7 @@ describe('parseLexicon refuses one case of each kind, with this message', () => 
     ],
     // 10,000 levels of nesting, in a member and as the whole text.
     ['deep arrays in a member', () => BASE_TEXTS[0]!.replace('"level": "word"', `"level": ${deepArrayText(10_000)}`), 'BAD_LEXICON', schemaMessage('encoding.rules.level', 'expected "word" or "char", got an array of 1 item')],
-    ['deep objects in a member', () => BASE_TEXTS[0]!.replace('"formatVersion": 1', `"formatVersion": ${deepObjectText(10_000)}`), 'BAD_LEXICON', `${SOURCE} member formatVersion: formatVersion is an object with 1 member, not a format version (a whole number from 1); ${REBUILD}`],
+    ['deep objects in a member', () => BASE_TEXTS[0]!.replace('"formatVersion": 2', `"formatVersion": ${deepObjectText(10_000)}`), 'BAD_LEXICON', `${SOURCE} member formatVersion: formatVersion is an object with 1 member, not a format version (a whole number from 1); ${REBUILD}`],
     ['deep arrays as the whole text', () => deepArrayText(10_000), 'NOT_A_LEXICON', NOT_A_LEXICON],
     ['deep objects as the whole text', () => deepObjectText(10_000), 'NOT_A_LEXICON', NOT_A_LEXICON],
     // V8 (Node 20) parses nesting iteratively: even a million levels are read, then refused as no lexicon.
@@ -498,7 +498,7 @@ describe('parseLexicon refuses one case of each kind, with this message', () => 
     ['an empty token', () => { const d = doc0(); (enc(d).tokens as Json[])[4] = ''; return d; }, 'BAD_LEXICON', schemaMessage('encoding.tokens[4]', '"" is shorter than 1 character')],
     // Unknown format and version values.
     ['another format', () => ({ ...doc0(), format: 'lexlock.tally' }), 'NOT_A_LEXICON', NOT_A_LEXICON],
-    ['a newer version', () => ({ ...doc0(), formatVersion: 2 }), 'NEWER_FORMAT', `${SOURCE} member formatVersion: lexicon format version 2 needs a newer lexlock; this one (0.1.0) reads versions up to 1; upgrade lexlock`],
+    ['a newer version', () => ({ ...doc0(), formatVersion: 3 }), 'NEWER_FORMAT', `${SOURCE} member formatVersion: lexicon format version 3 needs a newer lexlock; this one (0.2.0) reads versions up to 2; upgrade lexlock`],
     ['version 0', () => ({ ...doc0(), formatVersion: 0 }), 'BAD_LEXICON', `${SOURCE} member formatVersion: formatVersion is 0, not a format version (a whole number from 1); ${REBUILD}`],
     ['a version as a string', () => ({ ...doc0(), formatVersion: '1' }), 'BAD_LEXICON', `${SOURCE} member formatVersion: formatVersion is "1", not a format version (a whole number from 1); ${REBUILD}`],
     ['no version', () => { const d = doc0(); delete d.formatVersion; return d; }, 'BAD_LEXICON', `${SOURCE} member formatVersion: formatVersion is missing (a whole number from 1); ${REBUILD}`],
@@ -509,7 +509,7 @@ describe('parseLexicon refuses one case of each kind, with this message', () => 
       'FINGERPRINT_MISMATCH',
       `${SOURCE} member fingerprint: fingerprint ${(BASES[1] as (typeof BASES)[number]).lexicon.fingerprint} does not match the encoding, which hashes to ${lex0.fingerprint}; the file was edited or damaged: restore it or rebuild it`,
     ],
-    // Unknown members are refused everywhere: DESIGN.md's encoding holds "everything that decides an id
+    // Unknown members are refused everywhere: the contract's encoding holds "everything that decides an id
     // ... Nothing else", and any incompatible change bumps formatVersion, so a member this version does
     // not know means the file was not written by it (the schema's objects are strict).
     ['an unknown member at the top', () => ({ ...doc0(), comment: 'hand edited' }), 'BAD_LEXICON', schemaMessage('(top level)', 'unknown member "comment"')],
@@ -603,7 +603,7 @@ describe('names that are special in JavaScript are tokens and labels like any ot
   const reviews = SPECIAL.map((label, i) => ({ text: `__proto__ constructor toString hasOwnProperty valueOf ferry ${i}`, label }));
 
   it('"__proto__" is never one token of a text, so only a reserved token can be "__proto__"', () => {
-    // wink-tokenizer 5.3.0 itself (the contract's word tokenizer) tags "__" alien; DESIGN.md rule 2 splits
+    // wink-tokenizer 5.3.0 itself (the contract's word tokenizer) tags "__" alien; the contract's rule 2 splits
     // an alien token again with this regular expression, which leaves each "_" alone.
     const alienSplit = /[\p{sc=Han}\p{sc=Hiragana}\p{sc=Katakana}]|(?:(?![\p{sc=Han}\p{sc=Hiragana}\p{sc=Katakana}])[\p{L}\p{M}\p{N}])+|\S/gu;
     const wink = winkTokenizer().tokenize('__proto__ constructor');
@@ -634,12 +634,12 @@ describe('names that are special in JavaScript are tokens and labels like any ot
     expect(back.decode(ids)).toEqual(tokens);
     for (const name of reserved) {
       const id = back.idOf(name);
-      // Reserved tokens take the ids right after padding and OOV, in the order given (DESIGN.md, rule 4).
+      // Reserved tokens take the ids right after padding and OOV, in the order given (encoding contract, rule 4).
       expect(id).toBe(2 + reserved.indexOf(name));
       expect([back.has(name), back.tokenAt(id)]).toEqual([true, name]);
     }
     expect(Array.from(back.idsOf(['__proto__', 'isPrototypeOf', 'prototype']))).toEqual(reserved.length > 0 ? [2, back.oovId, back.oovId] : [back.oovId, back.oovId, back.oovId]);
-    // Labels in JavaScript string order (DESIGN.md, rule 6): '_' (U+005F) comes before the lower-case letters.
+    // Labels in JavaScript string order (encoding contract, rule 6): '_' (U+005F) comes before the lower-case letters.
     expect(back.labels).toEqual(['__proto__', 'constructor', 'hasOwnProperty', 'toString', 'valueOf']);
     back.labels.forEach((label, i) => expect([back.labelId(label), back.labelAt(i)]).toEqual([i, label]));
     expect(Array.from(back.encodeMany(reviews).labels ?? [])).toEqual(reviews.map((r) => back.labels.indexOf(r.label)));

@@ -9,7 +9,7 @@ import { resolveRules } from '../../src/rules/TextRules.js';
 import { Tally } from '../../src/tally/Tally.js';
 
 const lex = freeze(Tally.fromTexts([{ text: 'the ferry was late', label: 'delays' }, { text: 'lovely ferry', label: 'praise' }], resolveRules()), {
-  shape: { length: 6, pad: 'pre', cut: 'post' },
+  shape: { length: 6, pad: 'start', cut: 'end' },
   snippets: ['the ferry was late'],
 });
 const text = serializeLexicon(lex);
@@ -60,11 +60,50 @@ describe('parseLexicon', () => {
       'a newer format',
       () => ({ ...doc(), formatVersion: 7 }),
       'NEWER_FORMAT',
-      'lex.json member formatVersion: lexicon format version 7 needs a newer lexlock; this one (0.1.0) reads versions up to 1; upgrade lexlock',
+      'lex.json member formatVersion: lexicon format version 7 needs a newer lexlock; this one (0.2.0) reads versions up to 2; upgrade lexlock',
+    ],
+    [
+      'format version 1, naming the lexlock that wrote it',
+      () => {
+        const d = doc();
+        d.formatVersion = 1;
+        d.fit.lexlockVersion = '0.1.0';
+        return d;
+      },
+      'OLD_FORMAT',
+      "lex.json member formatVersion: lexicon format version 1 was written by lexlock 0.1.0; this lexlock (0.2.0) reads version 2 only (the shape's ends are now start and end, and the character level keeps spaces); " +
+        "rebuild it with this lexlock's build from the same corpus and flags, giving --pad and --cut as start or end (at --level char, --spaces drop gives the old character tokens)",
+    ],
+    [
+      'format version 1 without a fit',
+      () => ({ ...doc(), formatVersion: 1, fit: null }),
+      'OLD_FORMAT',
+      "lex.json member formatVersion: lexicon format version 1 was written by lexlock 0.1; this lexlock (0.2.0) reads version 2 only (the shape's ends are now start and end, and the character level keeps spaces); " +
+        "rebuild it with this lexlock's build from the same corpus and flags, giving --pad and --cut as start or end (at --level char, --spaces drop gives the old character tokens)",
+    ],
+    [
+      'a char-level rule without spaces',
+      () => {
+        const d = doc();
+        d.encoding.rules = { ...d.encoding.rules, level: 'char', spaces: null };
+        return d;
+      },
+      'BAD_LEXICON',
+      'lex.json member encoding.rules.spaces: encoding.rules.spaces is null, but the character level needs "keep" or "drop"; rebuild it with lexlock build',
+    ],
+    [
+      'a word-level rule with spaces',
+      () => {
+        const d = doc();
+        d.encoding.rules = { ...d.encoding.rules, spaces: 'drop' };
+        return d;
+      },
+      'BAD_LEXICON',
+      'lex.json member encoding.rules.spaces: encoding.rules.spaces is "drop", but white space is kept or dropped at the character level only (null at the word level); rebuild it with lexlock build',
     ],
     ['a wrong fingerprint', () => ({ ...doc(), fingerprint: `sha256:${'0'.repeat(64)}` }), 'FINGERPRINT_MISMATCH', `lex.json member fingerprint: fingerprint sha256:${'0'.repeat(64)} does not match the encoding, which hashes to ${lex.fingerprint}; the file was edited or damaged: restore it or rebuild it`],
     ['duplicate tokens', sameTokensElsewhere, 'DUPLICATE_TOKEN', 'lex.json member encoding.tokens: "ferry" stands at ids 2 and 3; every token must appear once in encoding.tokens'],
-    ['a changed canary', otherCanary, 'CANARY_MISMATCH', 'lex.json member canaries[2]: canary "Timetable at https://ferries.example.org" now gives ["timetable","at","https://ferries.example.org/routes?id=7#north","or","mail","help.desk@harbour.example"] but gave ["changed"] when the lexicon was built (1 of 8 canaries differ); the tokenizer or Unicode data changed under it (built with wink-tokenizer@5.3.0): use the versions it was built with, or rebuild it'],
+    ['a changed canary', otherCanary, 'CANARY_MISMATCH', 'lex.json member canaries[2]: canary "Timetable at https://ferries.example.org" now gives ["timetable","at","https://ferries.example.org/routes?id=7#north","or","mail","help.desk@harbour.example"] but gave ["changed"] when the lexicon was built (1 of 9 canaries differ); the tokenizer or Unicode data changed under it (built with wink-tokenizer@5.3.0): use the versions it was built with, or rebuild it'],
     [
       'a wrong member type',
       () => {

@@ -30,7 +30,7 @@ const heldOut = [
 
 describe('auditCorpus', () => {
   it('gives the hand-counted figures', async () => {
-    const r = await auditCorpus(heldOut, lexicon, { shape: { length: 4, pad: 'pre', cut: 'post' } });
+    const r = await auditCorpus(heldOut, lexicon, { shape: { length: 4, pad: 'start', cut: 'end' } });
     expect(r.documents).toBe(4);
     expect(r.tokens).toBe(13);
     expect(r.types).toBe(9); // late ferry the crossing was rough and lovely sea
@@ -55,7 +55,18 @@ describe('auditCorpus', () => {
       { token: 'was', count: 1 },
     ]);
     // Corpus ranking: late 3, rough 3, ferry 1 … (13 tokens): 90 % needs 12 of 13 -> 9 - 1 = 8 types.
-    expect(r.suggest).toEqual({ capFor90: 8, capFor95: 9, capFor99: 9, lengthFor90: 6, lengthFor95: 6, lengthFor99: 6 });
+    // 8 falls inside the 7 tokens seen once (ranks 3 to 9): whole counts at 2 (late, rough) or 9 (all).
+    expect(r.suggest).toEqual({
+      capFor90: 8,
+      capFor95: 9,
+      capFor99: 9,
+      wholeCapsFor90: { below: 2, above: 9 },
+      wholeCapsFor95: { below: 9, above: 9 },
+      wholeCapsFor99: { below: 9, above: 9 },
+      lengthFor90: 6,
+      lengthFor95: 6,
+      lengthFor99: 6,
+    });
     expect(r.lengthHistogram).toEqual([
       { length: 1, documents: 1 },
       { length: 3, documents: 2 },
@@ -64,6 +75,9 @@ describe('auditCorpus', () => {
     expect(r.coverage.at(-1)).toEqual({ cap: 9, share: 1 });
     expect(r.coverage[1]).toEqual({ cap: 2, share: 6 / 13 });
     expect(r.lexicon).toEqual({ fingerprint: lexicon.fingerprint, tokens: 3, size: 5, reserved: 0 });
+    // The lexicon's own corpus: late 4, then ferry, the, was 2 each; cap 3 keeps ferry and the by string
+    // order and leaves was out: caps 1 or 4 keep whole counts.
+    expect(r.capTie).toEqual({ cap: 3, count: 2, tokens: 3, kept: 2, left: 1, below: 1, above: 4 });
   });
 
   it('compares with the fit record: drift', async () => {
@@ -87,7 +101,7 @@ describe('auditCorpus', () => {
   });
 
   it('agrees with encode on every shared figure (one code path)', async () => {
-    const shape = { length: 4, pad: 'post', cut: 'pre' } as const;
+    const shape = { length: 4, pad: 'end', cut: 'start' } as const;
     const r = await auditCorpus(heldOut, lexicon, { shape });
     const stats = await encodeCorpus(heldOut, lexicon, shape, { row: () => undefined });
     expect([r.documents, r.tokens, r.oovTokens, r.truncatedDocuments, r.droppedTokens]).toEqual([stats.documents, stats.tokens, stats.oovTokens, stats.truncatedDocuments, stats.droppedTokens]);
@@ -125,6 +139,16 @@ describe('suggest', () => {
 
   it('gives nearest-rank lengths', () => {
     const lengths = new Map(Array.from({ length: 100 }, (_, i) => [i + 1, 1] as [number, number]));
-    expect(suggest([], 0, lengths)).toEqual({ capFor90: 0, capFor95: 0, capFor99: 0, lengthFor90: 90, lengthFor95: 95, lengthFor99: 99 });
+    expect(suggest([], 0, lengths)).toEqual({
+      capFor90: 0,
+      capFor95: 0,
+      capFor99: 0,
+      wholeCapsFor90: { below: 0, above: 0 },
+      wholeCapsFor95: { below: 0, above: 0 },
+      wholeCapsFor99: { below: 0, above: 0 },
+      lengthFor90: 90,
+      lengthFor95: 95,
+      lengthFor99: 99,
+    });
   });
 });

@@ -151,8 +151,8 @@ describe('compareLexicons', () => {
     ],
     [
       'a shape',
-      () => [base, lex(FERRY, { shape: { length: 4, pad: 'pre', cut: 'post' } })],
-      () => ({ shape: { a: null, b: { length: 4, pad: 'pre', cut: 'post' } } }),
+      () => [base, lex(FERRY, { shape: { length: 4, pad: 'start', cut: 'end' } })],
+      () => ({ shape: { a: null, b: { length: 4, pad: 'start', cut: 'end' } } }),
     ],
     [
       'labels added and moved (aardvark sorts first)',
@@ -186,7 +186,7 @@ describe('compareLexicons', () => {
     expect(compareLexicons(a, b)).toEqual(expected(a, b, parts(a, b)));
   });
 
-  it('lists every differing rule, in the order level, unicode, case, drop, collapse', () => {
+  it('lists every differing rule, in the order level, unicode, case, drop, collapse, spaces, tokenizer', () => {
     const a = lex(['Ferry 12, late!']);
     const b = lex(['Ferry 12, late!'], {}, resolveRules({ unicode: 'NFC', case: 'keep', drop: ['punctuation'], collapse: ['number'] }));
     expect(compareLexicons(a, b).rules).toEqual([
@@ -198,6 +198,7 @@ describe('compareLexicons', () => {
     const chars = lex(['ab'], {}, resolveRules({ level: 'char' }));
     expect(compareLexicons(lex(['ab']), chars).rules).toEqual([
       { member: 'level', a: 'word', b: 'char' },
+      { member: 'spaces', a: null, b: 'keep' },
       { member: 'tokenizer', a: 'wink-tokenizer@5.3.0', b: 'lexlock-chars@1' },
     ]);
   });
@@ -275,8 +276,8 @@ const specArb: fc.Arbitrary<Spec> = fc.record({
   shape: fc.option(
     fc.record({
       length: fc.integer({ min: 1, max: 3 }),
-      pad: fc.constantFrom('pre' as const, 'post' as const),
-      cut: fc.constantFrom('pre' as const, 'post' as const),
+      pad: fc.constantFrom('start' as const, 'end' as const),
+      cut: fc.constantFrom('start' as const, 'end' as const),
     }),
     { nil: null },
   ),
@@ -300,7 +301,7 @@ const pairArb: fc.Arbitrary<[Lexicon, Lexicon]> = fc.oneof(
     if (tweak === 'oov') y.oov = x.oov === 'first' ? 'last' : 'first';
     if (tweak === 'cap') y.cap = x.cap === null ? 2 : null;
     if (tweak === 'label') y.labels = x.labels.includes('neg') ? x.labels.filter((l) => l !== 'neg') : [...x.labels, 'neg'];
-    if (tweak === 'shape') y.shape = x.shape === null ? { length: 2, pad: 'pre', cut: 'pre' } : null;
+    if (tweak === 'shape') y.shape = x.shape === null ? { length: 2, pad: 'start', cut: 'start' } : null;
     if (tweak === 'reserved') y.reserved = x.reserved.length === 0 ? ['a'] : [];
     if (tweak === 'count') y.counts.zz = (x.counts.zz ?? 0) + 3;
     return [build(x), build(y, tweak === 'double' ? 2 : 1)];

@@ -50,7 +50,7 @@ async function measureTokenize(spec: PhaseSpec, tokens: (text: string) => string
 async function measureBuild(spec: PhaseSpec): Promise<Measured> {
   const start = process.hrtime.bigint();
   const { tally, snippets } = await tallyCorpus(readCorpus(spec.corpus, corpusOptions(spec)), resolveRules(), { threads: spec.threads ?? 1 });
-  const lexicon = freeze(tally, { cap: spec.cap, snippets, shape: { length: spec.length, pad: 'pre', cut: 'post' } });
+  const lexicon = freeze(tally, { cap: spec.cap, snippets, shape: { length: spec.length, pad: 'start', cut: 'end' } });
   const time = seconds(start);
   await saveLexicon(spec.lexicon, lexicon, { force: true });
   return { seconds: time, figures: { distinctTokens: tally.types, size: lexicon.size } };

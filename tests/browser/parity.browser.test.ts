@@ -70,7 +70,7 @@ beforeAll(async () => {
   dir = await mkdtemp(join(tmpdir(), 'lexlock-parity-'));
   const lexiconPath = join(dir, 'lexicon.json');
   const said: string[] = [];
-  const code = await run(['build', demo, '-o', lexiconPath, '--label', 'topic', '--cap', '3000', '--length', '48', '--pad', 'pre', '--quiet'], {
+  const code = await run(['build', demo, '-o', lexiconPath, '--label', 'topic', '--cap', '3000', '--length', '48', '--pad', 'start', '--quiet'], {
     stdout: { write: (t: string) => said.push(t) },
     stderr: { write: (t: string) => said.push(t), isTTY: false },
     env: {},

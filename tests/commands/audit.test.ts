@@ -24,7 +24,11 @@ describe('lexlock audit', () => {
       expect(report).toHaveProperty(member);
     }
     expect(Object.keys(report.length)).toEqual(['min', 'p50', 'p90', 'p95', 'p99', 'max']);
-    expect(Object.keys(report.suggest)).toEqual(['capFor90', 'capFor95', 'capFor99', 'lengthFor90', 'lengthFor95', 'lengthFor99']);
+    expect(Object.keys(report.suggest)).toEqual(['capFor90', 'capFor95', 'capFor99', 'wholeCapsFor90', 'wholeCapsFor95', 'wholeCapsFor99', 'lengthFor90', 'lengthFor95', 'lengthFor99']);
+    expect(report.suggest.wholeCapsFor90).toEqual({ below: 2, above: 9 });
+    // The lexicon (cap 3) cut through ferry, the, was (2 each) of its training corpus: ferry and the kept.
+    expect(report.capTie).toEqual({ cap: 3, count: 2, tokens: 3, kept: 2, left: 1, below: 1, above: 4 });
+    expect(report.shape).toEqual({ length: 4, pad: 'end', cut: 'end' });
     expect(Object.keys(report.labels.delays)).toEqual(['documents', 'tokens', 'oovTokens', 'truncatedDocuments']);
     expect(Object.keys(report.topOov[0])).toEqual(['token', 'count']);
     // Hand-counted (see tests/audit/auditCorpus.test.ts for the same corpus): 13 tokens, 8 OOV; at the
@@ -52,6 +56,9 @@ describe('lexlock audit', () => {
     expect([report.tokens, report.oovTokens, report.truncatedDocuments]).toEqual([12, 4, 0]);
     expect(report.drift).toBeUndefined();
     expect(report.labels.praise).toEqual({ documents: 1, tokens: 4, oovTokens: 2, truncatedDocuments: 0 });
+    expect(report.capTie).toEqual({ cap: 3, count: 2, tokens: 3, kept: 2, left: 1, below: 1, above: 4 });
+    const summary = await cli('audit', tmp.path('train.csv'), '--cap', '4', '--label', 'topic');
+    expect(summary.stdout).not.toContain('lexicon cap');
   });
 
   it.each([
@@ -81,7 +88,8 @@ describe('lexlock audit', () => {
     expect(plain.stdout).not.toContain('\x1b[');
     expect(plain.stdout).toContain('\nOOV               61.54 % of tokens (8)  above --max-oov 50.00 %\n');
     expect(plain.stdout).toContain('\nat length 4       1 document cut (25.00 %), 2 tokens dropped, 5 padding tokens\n');
-    expect(plain.stdout).toContain('\ncaps that cover   90 % of tokens: 8, 95 %: 9, 99 %: 9 (lexicon has 3)\n');
+    expect(plain.stdout).toContain('\ncaps that cover   90 % of tokens: 8 (whole counts: 2 or 9), 95 %: 9, 99 %: 9 (lexicon has 3)\n');
+    expect(plain.stdout).toContain('\nlexicon cap       cap 3 cuts through the 3 tokens seen twice: 2 kept by string order, 1 left out; caps 1 or 4 keep whole counts\n');
     expect(plain.stdout).toContain(
       ['label    documents  tokens       OOV  truncated', 'delays           2       9   44.44 %    50.00 %', 'praise           1       1  100.00 %     0.00 %', 'refunds          1       3  100.00 %     0.00 %'].join('\n'),
     );
@@ -101,6 +109,8 @@ describe('lexlock audit', () => {
     const html = await readFile(tmp.path('r.html'), 'utf8');
     expect(html).toContain(JSON.parse(await readFile(tmp.path('lex.json'), 'utf8')).fingerprint);
     expect(html).not.toMatch(/<script/i);
+    expect(html).toContain("<p class=\"cap-tie\"><strong>The lexicon's cap cuts through a tie.</strong> cap 3 cuts through the 3 tokens seen twice: 2 kept by string order, 1 left out; caps 1 or 4 keep whole counts (in the corpus the lexicon was built from).</p>");
+    expect(html).toContain('<td class="num">2 or 9</td>');
     const again = await cli('audit', tmp.path('live.csv'), '--lexicon', tmp.path('lex.json'), '--report', tmp.path('r.html'));
     expect([again.code, again.stderr]).toEqual([1, `lexlock audit: ${tmp.path('r.html')} already exists; pass --force to overwrite it\n`]);
   });

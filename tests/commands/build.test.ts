@@ -10,18 +10,22 @@ const CSV = 'text,topic\n"The ferry was late, again",delays\nLovely crossing,pra
 describe('lexlock build', () => {
   it('builds a lexicon from a labelled CSV (figures hand-counted)', async () => {
     await writeFile(tmp.path('m.csv'), CSV);
-    const r = await cli('build', tmp.path('m.csv'), '-o', tmp.path('lex.json'), '--label', 'topic', '--cap', '3', '--length', '4', '--pad', 'pre');
+    const r = await cli('build', tmp.path('m.csv'), '-o', tmp.path('lex.json'), '--label', 'topic', '--cap', '3', '--length', '4', '--pad', 'start');
     expect(r.stderr).toBe('');
     expect(r.code).toBe(0);
     const lex = parseLexicon(await readFile(tmp.path('lex.json'), 'utf8'));
     // late 4, then ',' 'again' 'crossing' 'ferry' 'lovely' 'the' 'was' once each: ',' < 'again' < … in code-unit order.
     expect(lex.encoding.tokens).toEqual(['late', ',', 'again']);
     expect(lex.labels).toEqual(['delays', 'praise']);
-    expect(lex.shape).toEqual({ length: 4, pad: 'pre', cut: 'post' });
+    expect(lex.shape).toEqual({ length: 4, pad: 'start', cut: 'end' });
     expect(lex.fit?.documents).toBe(3);
     expect(lex.fit?.labelField).toBe('topic');
     expect(r.stdout).toContain(`fingerprint      ${lex.fingerprint}`);
-    expect(r.stdout).toContain('vocabulary       3 tokens; padding 0, OOV 1; input dimension 5');
+    expect(r.stdout).toContain('vocabulary       3 tokens; padding 0, OOV 1; ids 0 to 4 (5 rows for an embedding)');
+    expect(r.stdout).toContain('shape            length 4; zeros at the start; long documents lose their end');
+    // late 4, then ',' again crossing ferry lovely the was once each: cap 3 keeps ',' and again of the 7.
+    expect(r.stdout).toContain('cap              cap 3 cuts through the 7 tokens seen once: 2 kept by string order, 5 left out; caps 1 or 8 keep whole counts');
+    expect(lex.fit?.capTie).toEqual({ cap: 3, count: 1, tokens: 7, kept: 2, left: 5, below: 1, above: 8 });
   });
 
   it('refuses to overwrite without --force, and overwrites with it', async () => {
@@ -36,10 +40,14 @@ describe('lexlock build', () => {
 
   it.each([
     [['--cap', '-3'], 'lexlock build: --cap: "-3" is not a whole number of at least 1\n'],
-    [['--pad', 'middle', '--length', '5'], 'lexlock build: --pad: "middle" is not one of pre, post\n'],
+    [['--pad', 'middle', '--length', '5'], 'lexlock build: --pad: "middle" is not an end of a row; use start or end (start puts the padding zeros before the tokens, end after them)\n'],
+    [['--pad', 'pre', '--length', '5'], 'lexlock build: --pad: "pre" is not an end of a row; use start or end (start puts the padding zeros before the tokens, end after them)\n'],
+    [['--cut', 'post', '--length', '5'], 'lexlock build: --cut: "post" is not an end of a row; use start or end (start makes a long document lose its first tokens, end its last)\n'],
+    [['--spaces', 'keep'], 'lexlock build: --spaces: white space is kept or dropped at --level char only (words never hold it); remove --spaces or add --level char\n'],
+    [['--level', 'char', '--spaces', 'squeeze'], 'lexlock build: --spaces: "squeeze" is not one of keep, drop\n'],
     [['--frobnicate'], 'lexlock build: unknown flag --frobnicate; see lexlock build --help\n'],
     [['--oov', 'middle'], 'lexlock build: --oov: "middle" is not one of first, last\n'],
-    [['--cut', 'pre'], 'lexlock build: --cut needs --length: padding and cutting apply to a fixed length\n'],
+    [['--cut', 'start'], 'lexlock build: --cut needs --length: padding and cutting apply to a fixed length\n'],
     [['--level', 'sentence'], 'lexlock build: --level: "sentence" is not one of word, char\n'],
     [['--drop', 'nouns'], 'lexlock build: --drop: "nouns" is not a token type; use alien, currency, email, emoji, emoticon, hashtag, mention, number, ordinal, punctuation, quoted_phrase, symbol, time, url, word\n'],
     [['--cap'], 'lexlock build: --cap needs a value\n'],
@@ -85,7 +93,16 @@ describe('lexlock build', () => {
     await writeFile(tmp.path('c.txt'), 'ab a\nb😀\n');
     expect((await cli('build', tmp.path('c.txt'), '-o', tmp.path('lex.json'), '--level', 'char')).code).toBe(0);
     const lex = parseLexicon(await readFile(tmp.path('lex.json'), 'utf8'));
-    expect(lex.encoding.tokens).toEqual(['a', 'b', '😀']);
+    // a and b twice each, then the space of 'ab a' and 😀 once: ' ' (U+0020) sorts before 😀.
+    expect(lex.encoding.tokens).toEqual(['a', 'b', ' ', '😀']);
+    expect(lex.encoding.rules.spaces).toBe('keep');
+    // A canary whose character tokens hold spaces, so a changed white-space rule is caught on load.
+    expect(lex.canaries.some((c) => c.tokens.includes(' '))).toBe(true);
+    expect((await cli('build', tmp.path('c.txt'), '-o', tmp.path('drop.json'), '--level', 'char', '--spaces', 'drop')).code).toBe(0);
+    const dropped = parseLexicon(await readFile(tmp.path('drop.json'), 'utf8'));
+    expect(dropped.encoding.tokens).toEqual(['a', 'b', '😀']);
+    expect(dropped.encoding.rules.spaces).toBe('drop');
+    expect(dropped.fingerprint).not.toBe(lex.fingerprint);
   });
 });
 
@@ -115,7 +132,7 @@ describe('lexlock build --encode', () => {
   const lexiconFileOf = (manifest: string) => manifest.replace(/"file": "[^"]*"/, '"file": "…"');
 
   it.each([
-    ['a folder of .npy files', 'out', ['--length', '4', '--pad', 'pre']],
+    ['a folder of .npy files', 'out', ['--length', '4', '--pad', 'start']],
     ['a .jsonl file', 'out.jsonl', []],
     ['a folder of .npy files, on 2 threads', 'out', ['--length', '4', '--threads', '2']],
   ])('writes the same lexicon and the same %s as build then encode, and leaves no temporary file', async (_what, out, shapeFlags) => {

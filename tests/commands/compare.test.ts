@@ -106,13 +106,13 @@ describe('lexlock compare', () => {
   it('prints rule, layout, shape and label differences', async () => {
     const a = await save('a.json', lex(labelled));
     // b, case kept: Ferry 1, The 2, ferry 3, late 4, the 5, OOV 6; labels aardvark 0, neg 1, pos 2.
-    const b = lex([...labelled, { text: 'The Ferry', label: 'aardvark' }], { oov: 'last', shape: { length: 4, pad: 'pre', cut: 'post' } }, keep);
+    const b = lex([...labelled, { text: 'The Ferry', label: 'aardvark' }], { oov: 'last', shape: { length: 4, pad: 'start', cut: 'end' } }, keep);
     const r = await runCompare(a, await save('b.json', b));
     expect(r.stdout.split('\n').slice(2)).toEqual([
       'verdict    different fingerprints: the same text can get other ids',
       'rules      case lower -> keep',
       'layout     oov first -> last',
-      'shape      none -> length 4, pad pre, cut post',
+      'shape      none -> length 4; zeros at the start; long documents lose their end',
       'tokens     3 -> 5, 3 shared',
       'only in a  0',
       'only in b  2: "Ferry", "The"',
@@ -134,11 +134,11 @@ describe('lexlock compare', () => {
 
   it('says when only the shape differs that token ids still agree, and labels are the same', async () => {
     const a = await save('a.json', lex(labelled));
-    const b = await save('b.json', lex(labelled, { shape: { length: 2, pad: 'post', cut: 'pre' } }));
+    const b = await save('b.json', lex(labelled, { shape: { length: 2, pad: 'end', cut: 'start' } }));
     const lines = (await runCompare(a, b)).stdout.split('\n');
     expect([lines[2], lines[5], lines.at(-2)]).toEqual([
       'verdict    different fingerprints, but every text gets the same token ids (before shape)',
-      'shape      none -> length 2, pad post, cut pre',
+      'shape      none -> length 2; zeros at the end; long documents lose their start',
       'labels     same (2)',
     ]);
   });
@@ -164,7 +164,7 @@ describe('lexlock compare', () => {
 
   it('prints the comparison as one JSON object with --json, members named exactly', async () => {
     const a = lex(labelled);
-    const b = lex([...labelled, { text: 'The Ferry', label: 'aardvark' }], { oov: 'last', shape: { length: 4, pad: 'pre', cut: 'post' } }, keep);
+    const b = lex([...labelled, { text: 'The Ferry', label: 'aardvark' }], { oov: 'last', shape: { length: 4, pad: 'start', cut: 'end' } }, keep);
     const r = await runCompare('--json', await save('a.json', a), await save('b.json', b), '--top', '3,1');
     expect(r.code).toBe(0);
     expect(r.stdout.endsWith('}\n')).toBe(true);
@@ -189,7 +189,7 @@ describe('lexlock compare', () => {
       fingerprints: { a: a.fingerprint, b: b.fingerprint },
       rules: [{ member: 'case', a: 'lower', b: 'keep' }],
       layout: [{ member: 'oov', a: 'first', b: 'last' }],
-      shape: { a: null, b: { length: 4, pad: 'pre', cut: 'post' } },
+      shape: { a: null, b: { length: 4, pad: 'start', cut: 'end' } },
       tokens: { a: 3, b: 5, shared: 3 },
       onlyInA: { count: 0, first: [] },
       onlyInB: { count: 2, first: ['Ferry', 'The'] },

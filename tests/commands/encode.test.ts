@@ -33,11 +33,11 @@ describe('lexlock encode', () => {
   });
 
   it('writes ids.npy, lengths.npy, labels.npy and manifest.json with the lexicon shape', async () => {
-    expect((await cli('build', tmp.path('m.csv'), '-o', tmp.path('lex.json'), '--label', 'topic', '--cap', '3', '--length', '4', '--pad', 'pre')).code).toBe(0);
+    expect((await cli('build', tmp.path('m.csv'), '-o', tmp.path('lex.json'), '--label', 'topic', '--cap', '3', '--length', '4', '--pad', 'start')).code).toBe(0);
     const r = await cli('encode', tmp.path('held.csv'), '--lexicon', tmp.path('lex.json'), '-o', tmp.path('out'));
     expect(r.stderr).toBe('');
     expect(r.code).toBe(0);
-    // tokens: late=2 ','=3 again=4 (OOV 1). Rows hand-encoded, pre-padded to 4, cut post.
+    // tokens: late=2 ','=3 again=4 (OOV 1). Rows hand-encoded, zeros at the start, 4 ids, long rows lose their end.
     const ids = await readNpy(tmp.path('out/ids.npy'));
     expect(ids.dtype).toBe('i4'); // npyjs reports the descr without its byte-order mark: little-endian int32
     expect(ids.shape).toEqual([4, 4]);
@@ -74,13 +74,13 @@ describe('lexlock encode', () => {
   it('takes --length for a lexicon without a shape, and refuses it for one with a shape', async () => {
     await cli('build', tmp.path('m.csv'), '-o', tmp.path('free.json'), '--cap', '3');
     await cli('build', tmp.path('m.csv'), '-o', tmp.path('shaped.json'), '--cap', '3', '--length', '4');
-    const ok = await cli('encode', tmp.path('m.csv'), '--lexicon', tmp.path('free.json'), '-o', tmp.path('out'), '--length', '2', '--cut', 'pre');
+    const ok = await cli('encode', tmp.path('m.csv'), '--lexicon', tmp.path('free.json'), '-o', tmp.path('out'), '--length', '2', '--cut', 'start');
     expect(ok.code).toBe(0);
     expect((await readNpy(tmp.path('out/ids.npy'))).data).toEqual([3, 4, 1, 1, 2, 2]);
     const refused = await cli('encode', tmp.path('m.csv'), '--lexicon', tmp.path('shaped.json'), '-o', tmp.path('out2'), '--length', '2');
     expect(refused.code).toBe(2);
     expect(refused.stderr).toBe(
-      `lexlock encode: --length: ${tmp.path('shaped.json')} already fixes the shape (length 4, pad post, cut post) as part of its fingerprint; drop --length, or build a lexicon without --length\n`,
+      `lexlock encode: --length: ${tmp.path('shaped.json')} already fixes the shape (length 4; zeros at the end; long documents lose their end) as part of its fingerprint; drop --length, or build a lexicon without --length\n`,
     );
   });
 

@@ -42,7 +42,7 @@ describe('lexlock merge', () => {
       await ok('tally', tmp.path(`part-${i}.csv`), '-o', tmp.path(`part-${i}.tally`), '--label', 'topic', '--collapse', 'number');
     }
     await ok('merge', tmp.path('part-0.tally'), tmp.path('part-1.tally'), tmp.path('part-2.tally'), '-o', tmp.path('all.tally'));
-    const shape = ['--cap', '500', '--length', '40', '--pad', 'pre', '--min-count', '2'];
+    const shape = ['--cap', '500', '--length', '40', '--pad', 'start', '--min-count', '2'];
     await ok('build', tmp.path('all.tally'), '-o', tmp.path('shards.json'), ...shape);
     await ok('build', FERRY, '-o', tmp.path('whole.json'), '--label', 'topic', '--collapse', 'number', ...shape);
     const shards = parseLexicon(await read('shards.json'));

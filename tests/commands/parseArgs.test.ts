@@ -30,9 +30,9 @@ describe('parseArgs', () => {
   });
 
   it('checks values by kind', () => {
-    const r = parseArgs('build', ['--cap', '12', '--output', 'pre', '--reserve', 'a,b', '--reserve', 'c'], flags);
+    const r = parseArgs('build', ['--cap', '12', '--output', 'north', '--reserve', 'a,b', '--reserve', 'c'], flags);
     expect(wholeNumberFlag(r, 'cap', 1)).toBe(12);
-    expect(choiceFlag(r, 'output', ['pre', 'post'])).toBe('pre');
+    expect(choiceFlag(r, 'output', ['north', 'south'])).toBe('north');
     expect(listFlag(r, 'reserve')).toEqual(['a', 'b', 'c']);
     expect(() => wholeNumberFlag(parseArgs('build', ['--cap', '1.5'], flags), 'cap', 1)).toThrow('--cap: "1.5" is not a whole number of at least 1');
   });

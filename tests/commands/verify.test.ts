@@ -17,10 +17,13 @@ describe('lexlock verify', () => {
     const r = await cli('verify', tmp.path('lex.json'));
     const fingerprint = JSON.parse(await readFile(tmp.path('lex.json'), 'utf8')).fingerprint as string;
     expect(r.code).toBe(0);
-    expect(r.stdout.split('\n')[0]).toBe(`ok ${tmp.path('lex.json')}: schema, fingerprint and 9 canaries check out`);
+    expect(r.stdout.split('\n')[0]).toBe(`ok ${tmp.path('lex.json')}: schema, fingerprint and 10 canaries check out`);
     expect(r.stdout).toContain(`fingerprint      ${fingerprint}`);
     const json = JSON.parse((await cli('verify', tmp.path('lex.json'), '--json')).stdout);
-    expect(json).toMatchObject({ ok: true, fingerprint, formatVersion: 1, tokens: 6, size: 8 });
+    expect(json).toEqual({ ok: true, fingerprint, formatVersion: 2, tokens: 6, size: 8, labels: 0, canaries: 10 });
+    // verify --help lists every member --json prints.
+    const help = (await cli('verify', '--help')).stdout;
+    for (const member of Object.keys(json)) expect(help).toContain(`"${member}"`);
   });
 
   it.each<[string, (text: string) => string, RegExp]>([
@@ -35,7 +38,8 @@ describe('lexlock verify', () => {
     ['not JSON', () => '{', /: not JSON \(/],
     ['not a lexicon', () => '{"a":1}', /not a lexlock lexicon/],
     ['a changed canary', (t) => t.replace('"timetable"', '"schedule"'), /member canaries\[2\]: canary "Timetable at/],
-    ['a newer version', (t) => t.replace('"formatVersion": 1', '"formatVersion": 2'), /lexicon format version 2 needs a newer lexlock/],
+    ['a newer version', (t) => t.replace('"formatVersion": 2', '"formatVersion": 3'), /lexicon format version 3 needs a newer lexlock/],
+    ['format version 1', (t) => t.replace('"formatVersion": 2', '"formatVersion": 1'), /member formatVersion: lexicon format version 1 was written by lexlock 0\.2\.0; this lexlock \(0\.2\.0\) reads version 2 only .*; rebuild it with this lexlock's build/],
   ])('exits 1 on %s', async (_what, edit, message) => {
     await writeFile(tmp.path('lex.json'), edit(await readFile(tmp.path('lex.json'), 'utf8')));
     const r = await cli('verify', tmp.path('lex.json'));

@@ -1,7 +1,7 @@
 import { mkdir, readdir, readFile, rm, writeFile } from 'node:fs/promises';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { openAtomic } from '../../src/files/atomicWrite.js';
+import { openAtomic } from '../../src/files/writeWhole.js';
 import { NumberSpill } from '../../src/files/NumberSpill.js';
 import { removeOpenTemps } from '../../src/files/openTemps.js';
 import { spillPathFor } from '../../src/files/tempNames.js';

@@ -2,7 +2,7 @@ import { lstat, mkdir, readdir, readFile, readlink, symlink, writeFile } from 'n
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { isLexlockError, type LexlockError } from '../../src/LexlockError.js';
-import { writeFileAtomic } from '../../src/files/atomicWrite.js';
+import { writeWhole } from '../../src/files/writeWhole.js';
 import { assertWritable } from '../../src/files/refuseOverwrite.js';
 import { assertNotSymlink } from '../../src/files/refuseSymlink.js';
 import { saveTally } from '../../src/files/saveTally.js';
@@ -67,7 +67,7 @@ describe('writers refuse a symbolic link and leave the link and its target as th
   it.each([
     ['assertWritable without --force', 'lex.json', (p: string) => assertWritable(p, false)],
     ['assertWritable with --force', 'lex.json', (p: string) => assertWritable(p, true)],
-    ['writeFileAtomic (manifest.json of an encoded folder)', 'manifest.json', (p: string) => writeFileAtomic(p, '{}')],
+    ['writeWhole (manifest.json of an encoded folder)', 'manifest.json', (p: string) => writeWhole(p, '{}')],
     ['NpyWriter.open', 'ids.npy', (p: string) => NpyWriter.open(p, 8)],
     ['JsonlWriter.open', 'rows.jsonl', (p: string) => JsonlWriter.open(p)],
     ['saveTally with force', 'part.tally', (p: string) => saveTally(p, { tally: new Tally(resolveRules()), snippets: [], fields: { text: 'text', label: null } }, { force: true })],

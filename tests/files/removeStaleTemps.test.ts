@@ -3,7 +3,7 @@ import { mkdir, readdir, readFile, symlink, writeFile } from 'node:fs/promises';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { NumberSpill } from '../../src/files/NumberSpill.js';
-import { writeFileAtomic } from '../../src/files/atomicWrite.js';
+import { writeWhole } from '../../src/files/writeWhole.js';
 import { removeStaleTemps } from '../../src/files/removeStaleTemps.js';
 import { spillPathFor } from '../../src/files/tempNames.js';
 import { caseFolders } from '../helpers/caseFolders.js';
@@ -67,7 +67,7 @@ describe('removeStaleTemps', () => {
     await writeFile(join(dir, `.lex.json.${NEVER}.0123456789ab.tmp`), 'half of an old write');
     await writeFile(join(dir, `.lex.json.${NEVER}.numbers.tmp`), 'numbers of a killed build --encode');
     await writeFile(join(dir, `.ids.npy.${NEVER}.0123456789ab.tmp`), 'another destination');
-    await writeFileAtomic(join(dir, 'lex.json'), 'new');
+    await writeWhole(join(dir, 'lex.json'), 'new');
     expect((await readdir(dir)).sort()).toEqual([`.ids.npy.${NEVER}.0123456789ab.tmp`, 'lex.json']);
   });
 

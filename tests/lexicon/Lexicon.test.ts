@@ -28,17 +28,17 @@ describe('Lexicon', () => {
   });
 
   it.each<[Shape, number[]]>([
-    [{ length: 8, pad: 'pre', cut: 'pre' }, [0, 0, 4, 3, 5, 2, 1, 1]],
-    [{ length: 8, pad: 'post', cut: 'pre' }, [4, 3, 5, 2, 1, 1, 0, 0]],
-    [{ length: 3, pad: 'pre', cut: 'pre' }, [2, 1, 1]],
-    [{ length: 3, pad: 'pre', cut: 'post' }, [4, 3, 5]],
+    [{ length: 8, pad: 'start', cut: 'start' }, [0, 0, 4, 3, 5, 2, 1, 1]],
+    [{ length: 8, pad: 'end', cut: 'start' }, [4, 3, 5, 2, 1, 1, 0, 0]],
+    [{ length: 3, pad: 'start', cut: 'start' }, [2, 1, 1]],
+    [{ length: 3, pad: 'start', cut: 'end' }, [4, 3, 5]],
   ])('shapes with %j', (shape, expected) => {
     expect(Array.from(lex.encode('The ferry was LATE, sadly', { shape }))).toEqual(expected);
   });
 
   it('encodes many texts into one row-major batch with lengths and label ids', () => {
     const batch = lex.encodeMany([{ text: 'late ferry', label: 'praise' }, { text: 'the the the the the' }, { text: 'again', label: 'refunds' }], {
-      shape: { length: 4, pad: 'post', cut: 'post' },
+      shape: { length: 4, pad: 'end', cut: 'end' },
     });
     expect(batch.rows).toBe(3);
     expect(batch.length).toBe(4);
@@ -69,7 +69,7 @@ describe('Lexicon', () => {
 });
 
 describe('shapes (property)', () => {
-  const shapeArb = fc.record({ length: fc.integer({ min: 1, max: 20 }), pad: fc.constantFrom('pre', 'post'), cut: fc.constantFrom('pre', 'post') }) as fc.Arbitrary<Shape>;
+  const shapeArb = fc.record({ length: fc.integer({ min: 1, max: 20 }), pad: fc.constantFrom('start', 'end'), cut: fc.constantFrom('start', 'end') }) as fc.Arbitrary<Shape>;
   const words = fc.array(fc.constantFrom('late', 'ferry', 'the', 'was', 'again', 'lovely', 'zzz', 'constructor'), { maxLength: 30 });
 
   it('every encoding has the shape length, ids in range, padding on the padding side, order kept', () => {
@@ -80,11 +80,11 @@ describe('shapes (property)', () => {
         expect(ids.length).toBe(shape.length);
         for (const id of ids) expect(id >= 0 && id < lex.size).toBe(true);
         const kept = Math.min(raw.length, shape.length);
-        const tokens = shape.pad === 'pre' ? ids.slice(shape.length - kept) : ids.slice(0, kept);
-        const padding = shape.pad === 'pre' ? ids.slice(0, shape.length - kept) : ids.slice(kept);
+        const tokens = shape.pad === 'start' ? ids.slice(shape.length - kept) : ids.slice(0, kept);
+        const padding = shape.pad === 'start' ? ids.slice(0, shape.length - kept) : ids.slice(kept);
         expect(padding.every((v) => v === 0)).toBe(true);
         expect(tokens.every((v) => v !== 0)).toBe(true);
-        const expected = raw.length <= shape.length ? raw : shape.cut === 'pre' ? raw.slice(raw.length - shape.length) : raw.slice(0, shape.length);
+        const expected = raw.length <= shape.length ? raw : shape.cut === 'start' ? raw.slice(raw.length - shape.length) : raw.slice(0, shape.length);
         expect(Array.from(tokens)).toEqual(Array.from(expected));
       }),
       { numRuns: 300 },

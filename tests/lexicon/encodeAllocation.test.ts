@@ -28,7 +28,7 @@ function lexiconOf(rules: TextRulesInput): Lexicon {
   return freeze(Tally.fromTexts(texts, resolveRules(rules)), { cap: 1_000 });
 }
 
-const SHAPE: Shape = { length: 64, pad: 'pre', cut: 'post' };
+const SHAPE: Shape = { length: 64, pad: 'start', cut: 'end' };
 // Made once: an options object written in the measured call would be the caller's allocation.
 const SHAPED = { shape: SHAPE };
 const VARIABLE = { shape: null };

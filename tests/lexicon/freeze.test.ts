@@ -57,7 +57,7 @@ describe('freeze (encoding contract, rule 4)', () => {
   });
 
   it('records truncation under a shape', () => {
-    const lex = freeze(tally, { shape: { length: 3, pad: 'pre', cut: 'post' } });
+    const lex = freeze(tally, { shape: { length: 3, pad: 'start', cut: 'end' } });
     // Documents of 5 tokens (1) are cut: 1 document, 2 tokens dropped.
     expect(lex.fit!.truncation).toEqual({ length: 3, truncatedDocuments: 1, droppedTokens: 2 });
   });
@@ -76,8 +76,8 @@ describe('freeze (encoding contract, rule 4)', () => {
     [{ oov: 'middle' }, 'oov: "middle" is not a place; use first or last'],
     [{ reserved: ['x', 'x'] }, 'reserved: "x" is listed twice'],
     [{ reserved: [''] }, 'reserved: a reserved token cannot be empty'],
-    [{ shape: { length: 0, pad: 'pre', cut: 'pre' } }, 'length: 0 is not a positive whole number of tokens'],
-    [{ shape: { length: 5, pad: 'middle', cut: 'pre' } }, 'pad: "middle" is not a side; use pre or post'],
+    [{ shape: { length: 0, pad: 'start', cut: 'start' } }, 'length: 0 is not a positive whole number of tokens'],
+    [{ shape: { length: 5, pad: 'middle', cut: 'start' } }, 'pad: "middle" is not an end of a row; use start (zeros before the tokens) or end (zeros after them)'],
   ])('refuses %j', (options, message) => {
     expect(() => freeze(tally, options as never)).toThrow(message);
   });

@@ -82,6 +82,6 @@ describe('the packed package', () => {
     const lexicon = join(consumer, 'lexicon.json');
     await run(NPX, ['--no-install', 'lexlock', 'build', demo, '-o', lexicon, '--label', 'topic', '--cap', '500', '--quiet'], { cwd: consumer });
     const { stdout } = await run(NPX, ['--no-install', 'lexlock', 'verify', lexicon], { cwd: consumer });
-    expect(stdout).toContain('vocabulary       500 tokens; padding 0, OOV 1; input dimension 502');
+    expect(stdout).toContain('vocabulary       500 tokens; padding 0, OOV 1; ids 0 to 501 (502 rows for an embedding)');
   });
 });

@@ -32,7 +32,7 @@ async function lexiconText(docs: readonly LabelledText[], cuts: readonly number[
     files.push({ name: `shard ${s}`, file: tallyFileParse(tallyFileText({ tally, snippets, fields: { text: 'text', label: 'label' } })) });
   }
   const merged = tallyFileMerge(files);
-  return serializeLexicon(freeze(merged.tally, { cap: 500, snippets: merged.snippets, shape: { length: 40, pad: 'pre', cut: 'post' }, now: NOW }));
+  return serializeLexicon(freeze(merged.tally, { cap: 500, snippets: merged.snippets, shape: { length: 40, pad: 'start', cut: 'end' }, now: NOW }));
 }
 
 /** `docs` in the order `order` gives (a permutation of their indexes). */

@@ -30,7 +30,7 @@ describe('tallyCorpus and encodeCorpus', () => {
       resolveRules(),
     );
     const lexicon = freeze(tally);
-    const shape = { length: 4, pad: 'post', cut: 'post' } as const;
+    const shape = { length: 4, pad: 'end', cut: 'end' } as const;
     const rows: Array<[number[], number, number | null]> = [];
     const stats = await encodeCorpus(docs(), lexicon, shape, { row: (ids, kept, label) => void rows.push([Array.from(ids), kept, label]) });
     const texts = ['late late ferry', '', 'the ferry was late again and again', 'new label'];

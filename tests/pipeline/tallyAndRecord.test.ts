@@ -21,9 +21,9 @@ function collecting(): { rows: number[][]; sink: RowSink } {
 // Common practice: encoding from kept token numbers must give what encoding the corpus again gives.
 describe('tallyAndRecord', () => {
   it.each([
-    ['fixed length, pre padding, 1 thread', { length: 24, pad: 'pre', cut: 'pre' } as const, 1],
+    ['fixed length, zeros at the start, 1 thread', { length: 24, pad: 'start', cut: 'start' } as const, 1],
     ['variable length, 1 thread', null, 1],
-    ['fixed length, 2 threads', { length: 24, pad: 'post', cut: 'post' } as const, 2],
+    ['fixed length, 2 threads', { length: 24, pad: 'end', cut: 'end' } as const, 2],
     ['variable length, 3 threads', null, 3],
   ])('tallies as tallyCorpus does and encodes the same rows as encodeCorpus (%s), then removes its spill', async (_name, shape, threads) => {
     const recorded = await tallyAndRecord(readCorpus(demo, { label: 'topic' }), rules, tmp.path('spill'), { threads });

@@ -1,9 +1,9 @@
 // Common practice (no published source): the id layout and sequence shapes that text classifiers are
 // commonly fed. Id 0 is padding; one id stands for every out-of-vocabulary token; a vocabulary capped
-// at N words therefore needs an input dimension of N + 2; documents are made a fixed length by
+// at N words therefore needs N + 2 ids (embedding rows); documents are made a fixed length by
 // adding 0s at the start or end and by dropping tokens from the start or end. The exact numbers
 // below (cap 20,000, length 80, the id of each word) follow from those conventions and from the
-// encoding contract (DESIGN.md rules 4 and 5), not from any outside table.
+// encoding contract (README "How text becomes ids", rules 4 and 5), not from any outside table.
 import { beforeAll, describe, expect, it } from 'vitest';
 import { freeze } from '../../src/lexicon/freeze.js';
 import type { Lexicon } from '../../src/lexicon/Lexicon.js';
@@ -75,7 +75,7 @@ describe('common practice: a 20,000-word vocabulary', () => {
   });
 
   describe('oov: last', () => {
-    it('padding is 0, the words are 1…20,000, OOV is 20,001, the input dimension is 20,002', () => {
+    it('padding is 0, the words are 1…20,000, OOV is 20,001, 20,002 ids in all (rows for an embedding)', () => {
       expect(last.idOf(word(0))).toBe(1);
       expect(last.idOf(word(1))).toBe(2);
       expect(last.idOf(word(CAP - 1))).toBe(CAP);
@@ -105,7 +105,7 @@ describe('common practice: a 20,000-word vocabulary', () => {
   });
 
   describe('oov: first', () => {
-    it('padding is 0, OOV is 1, the words are 2…20,001, the input dimension is 20,002', () => {
+    it('padding is 0, OOV is 1, the words are 2…20,001, 20,002 ids in all (rows for an embedding)', () => {
       expect(first.oovId).toBe(1);
       expect(first.idOf('zzzzz')).toBe(1);
       expect(first.idOf(word(CAP))).toBe(1);
@@ -144,24 +144,24 @@ describe('common practice: a 20,000-word vocabulary', () => {
 
     // Expected rows: ids from the ranks above; 0s where padding goes; the cut end's tokens dropped.
     const cases: Array<[string, Shape]> = [
-      ['pad pre, cut pre', { length: LENGTH, pad: 'pre', cut: 'pre' }],
-      ['pad pre, cut post', { length: LENGTH, pad: 'pre', cut: 'post' }],
-      ['pad post, cut pre', { length: LENGTH, pad: 'post', cut: 'pre' }],
-      ['pad post, cut post', { length: LENGTH, pad: 'post', cut: 'post' }],
+      ['pad start, cut start', { length: LENGTH, pad: 'start', cut: 'start' }],
+      ['pad start, cut end', { length: LENGTH, pad: 'start', cut: 'end' }],
+      ['pad end, cut start', { length: LENGTH, pad: 'end', cut: 'start' }],
+      ['pad end, cut end', { length: LENGTH, pad: 'end', cut: 'end' }],
     ];
 
     it.each(cases)('%s: the 100-token document loses 20 tokens at the cut end', (_name, shape) => {
       for (const [lexicon, oov] of [[last, 'last'], [first, 'first']] as const) {
         const all = long.map((t) => expectedId(t, oov));
-        const kept = shape.cut === 'pre' ? all.slice(100 - LENGTH) : all.slice(0, LENGTH);
+        const kept = shape.cut === 'start' ? all.slice(100 - LENGTH) : all.slice(0, LENGTH);
         const row = [...lexicon.encode(longText, { shape })];
         expect(row).toEqual(kept);
         expect(row).toHaveLength(LENGTH);
         expect(row.includes(0)).toBe(false);
         // The OOV tokens at positions 50 and 99 of the document.
         const oovId = oov === 'first' ? 1 : CAP + 1;
-        expect(row[shape.cut === 'pre' ? 50 - 20 : 50]).toBe(oovId);
-        if (shape.cut === 'pre') expect(row[LENGTH - 1]).toBe(oovId);
+        expect(row[shape.cut === 'start' ? 50 - 20 : 50]).toBe(oovId);
+        if (shape.cut === 'start') expect(row[LENGTH - 1]).toBe(oovId);
         else expect(row[LENGTH - 1]).toBe(expectedId(word(79 * 201), oov));
       }
     });
@@ -170,13 +170,13 @@ describe('common practice: a 20,000-word vocabulary', () => {
       for (const [lexicon, oov] of [[last, 'last'], [first, 'first']] as const) {
         const ids = short.map((t) => expectedId(t, oov));
         const zeros = new Array<number>(LENGTH - 30).fill(0);
-        const expected = shape.pad === 'pre' ? [...zeros, ...ids] : [...ids, ...zeros];
+        const expected = shape.pad === 'start' ? [...zeros, ...ids] : [...ids, ...zeros];
         expect([...lexicon.encode(shortText, { shape })]).toEqual(expected);
       }
     });
 
     it('a batch of both documents is row-major, 2 x 80, with 80 and 30 real tokens', () => {
-      const shape: Shape = { length: LENGTH, pad: 'pre', cut: 'pre' };
+      const shape: Shape = { length: LENGTH, pad: 'start', cut: 'start' };
       const batch = last.encodeMany([longText, shortText], { shape });
       expect(batch.rows).toBe(2);
       expect(batch.length).toBe(LENGTH);
@@ -184,7 +184,7 @@ describe('common practice: a 20,000-word vocabulary', () => {
       expect([...batch.lengths]).toEqual([LENGTH, 30]);
       expect([...batch.ids.slice(0, LENGTH)]).toEqual(long.slice(20).map((t) => expectedId(t, 'last')));
       expect([...batch.ids.slice(LENGTH)]).toEqual([...new Array<number>(50).fill(0), ...short.map((t) => expectedId(t, 'last'))]);
-      // Every id fits the input dimension.
+      // Every id is below size (N + 2).
       expect(Math.max(...batch.ids)).toBeLessThan(last.size);
     });
   });

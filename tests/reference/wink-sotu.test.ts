@@ -20,7 +20,7 @@ function isSpeech(value: unknown): value is Speech {
   return typeof value === 'object' && value !== null && typeof v.year === 'number' && typeof v.name === 'string' && typeof v.text === 'string';
 }
 
-// The alien split exactly as the encoding contract (DESIGN.md, rule 2) writes it, copied from there
+// The alien split exactly as the encoding contract (README, "How text becomes ids", rule 2) writes it, copied from there
 // rather than imported from src/, so this file checks the implementation against the contract.
 const CONTRACT_ALIEN_SPLIT =
   /[\p{sc=Han}\p{sc=Hiragana}\p{sc=Katakana}]|(?:(?![\p{sc=Han}\p{sc=Hiragana}\p{sc=Katakana}])[\p{L}\p{M}\p{N}])+|\S/gu;

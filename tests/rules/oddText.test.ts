@@ -7,7 +7,8 @@ import { resolveRules } from '../../src/rules/TextRules.js';
 import { tokenize } from '../../src/rules/tokenize.js';
 
 const word = resolveRules();
-const char = resolveRules({ level: 'char' });
+const char = resolveRules({ level: 'char', spaces: 'drop' });
+const charSpaces = resolveRules({ level: 'char' });
 
 describe('empty-looking and broken text', () => {
   it.each<[string, string, string[], string[]]>([
@@ -31,5 +32,18 @@ describe('empty-looking and broken text', () => {
   ])('%s', (_name, text, words, chars) => {
     expect(tokenize(text, word)).toEqual(words);
     expect(tokenize(text, char)).toEqual(chars);
+  });
+
+  // With spaces kept (the character level's default) each run of white space is one ' ' token.
+  it.each<[string, string, string[]]>([
+    ['zero-width joiner between spaces', 'a \u200D b', ['a', ' ', '\u200D', ' ', 'b']],
+    ['zero-width space inside a word: no space', 'a\u200Bb', ['a', '\u200B', 'b']],
+    ['byte order mark: a space', 'a\uFEFFb', ['a', ' ', 'b']],
+    ['byte order mark alone: one space', '\uFEFF', [' ']],
+    ['only white space: one space', ' \t\n\u00A0\u3000', [' ']],
+    ['lone high surrogate then a space', 'a\uD800 b', ['a', '\uFFFD', ' ', 'b']],
+    ['empty', '', []],
+  ])('%s (spaces kept)', (_name, text, chars) => {
+    expect(tokenize(text, charSpaces)).toEqual(chars);
   });
 });

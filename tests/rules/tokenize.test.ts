@@ -46,16 +46,22 @@ describe('splitAlien (contract rule 2 regular expression)', () => {
 });
 
 describe('character level', () => {
-  it('keeps every non-white-space code point, astral ones whole', () => {
-    expect(tokenize('a b\u00a0c😀\n', resolveRules({ level: 'char', unicode: 'none', case: 'keep' }))).toEqual(['a', 'b', 'c', '😀']);
-    expect(tokenize('Ab ﬁ', resolveRules({ level: 'char' }))).toEqual(['a', 'b', 'f', 'i']);
+  it('keeps every non-white-space code point, astral ones whole, and each run of white space as one space', () => {
+    expect(tokenize('a b\u00a0c😀\n', resolveRules({ level: 'char', unicode: 'none', case: 'keep' }))).toEqual(['a', ' ', 'b', ' ', 'c', '😀', ' ']);
+    expect(tokenize(' Ab \t\r\n ﬁ', resolveRules({ level: 'char' }))).toEqual([' ', 'a', 'b', ' ', 'f', 'i']);
+  });
+
+  it('drops white space with spaces: drop', () => {
+    expect(tokenize('a b\u00a0c😀\n', resolveRules({ level: 'char', unicode: 'none', case: 'keep', spaces: 'drop' }))).toEqual(['a', 'b', 'c', '😀']);
+    expect(tokenize('Ab ﬁ', resolveRules({ level: 'char', spaces: 'drop' }))).toEqual(['a', 'b', 'f', 'i']);
   });
 });
 
 describe('resolveRules', () => {
   it('fills defaults and records the tokenizer', () => {
-    expect(resolveRules()).toEqual({ level: 'word', unicode: 'NFKC', case: 'lower', drop: [], collapse: [], tokenizer: 'wink-tokenizer@5.3.0' });
-    expect(resolveRules({ level: 'char' }).tokenizer).toBe('lexlock-chars@1');
+    expect(resolveRules()).toEqual({ level: 'word', unicode: 'NFKC', case: 'lower', drop: [], collapse: [], spaces: null, tokenizer: 'wink-tokenizer@5.3.0' });
+    expect(resolveRules({ level: 'char' })).toEqual({ level: 'char', unicode: 'NFKC', case: 'lower', drop: [], collapse: [], spaces: 'keep', tokenizer: 'lexlock-chars@1' });
+    expect(resolveRules({ level: 'char', spaces: 'drop' }).spaces).toBe('drop');
   });
 
   it('sorts and de-duplicates type lists so equal rules serialize equally', () => {
@@ -67,6 +73,8 @@ describe('resolveRules', () => {
     [{ level: 'char', drop: ['url'] }, 'drop/collapse: token types exist at the word level only; remove them or use level word'],
     [{ drop: ['url'], collapse: ['url'] }, 'drop/collapse: "url" is both dropped and collapsed; choose one'],
     [{ unicode: 'NFD' }, 'unicode: "NFD" is not a normalization; use NFKC, NFC or none'],
+    [{ spaces: 'keep' }, 'spaces: white space is kept or dropped at the character level only (the word level never makes a token of it); remove it or use level char'],
+    [{ level: 'char', spaces: 'squeeze' }, 'spaces: "squeeze" is not a space rule; use keep or drop'],
   ])('refuses %j', (input, message) => {
     expect(() => resolveRules(input as never)).toThrow(message);
   });

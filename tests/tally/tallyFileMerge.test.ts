@@ -89,8 +89,8 @@ describe('tallyFileMerge', () => {
         }
         const whole = part(all);
         const now = new Date(0);
-        const a = freeze(whole.tally, { cap, shape: { length: 4, pad: 'pre', cut: 'post' }, now });
-        const b = freeze(merged(...shards).tally, { cap, shape: { length: 4, pad: 'pre', cut: 'post' }, now });
+        const a = freeze(whole.tally, { cap, shape: { length: 4, pad: 'start', cut: 'end' }, now });
+        const b = freeze(merged(...shards).tally, { cap, shape: { length: 4, pad: 'start', cut: 'end' }, now });
         expect(b.fingerprint).toBe(a.fingerprint);
         expect(b.encoding).toEqual(a.encoding);
         expect(b.fit).toEqual(a.fit);

@@ -45,7 +45,10 @@ describe('tallyFileParse', () => {
 
   it.each<[string, (d: Record<string, unknown>) => unknown, string, string, string | undefined]>([
     ['a lexicon', () => ({ format: 'lexlock.lexicon' }), 'NOT_A_TALLY', 'p.tally: not a lexlock tally (no "format": "lexlock.tally" member); pass a file written by lexlock tally or lexlock merge', undefined],
-    ['a newer version', (d) => ({ ...d, formatVersion: 2 }), 'NEWER_FORMAT', 'p.tally member formatVersion: tally format version 2 needs a newer lexlock; this one (0.1.0) reads versions up to 1; upgrade lexlock', 'formatVersion'],
+    ['a newer version', (d) => ({ ...d, formatVersion: 3 }), 'NEWER_FORMAT', 'p.tally member formatVersion: tally format version 3 needs a newer lexlock; this one (0.2.0) reads versions up to 2; upgrade lexlock', 'formatVersion'],
+    ['version 1', (d) => ({ ...d, formatVersion: 1 }), 'OLD_FORMAT', `p.tally member formatVersion: tally format version 1 was written by lexlock 0.1, whose character level dropped white space; this lexlock (0.2.0) reads version 2; ${AGAIN}`, 'formatVersion'],
+    ['a char-level tally without spaces', (d) => ({ ...d, rules: { ...(d.rules as object), level: 'char', spaces: null } }), 'BAD_TALLY', `p.tally member rules.spaces: rules.spaces is null, but the character level needs "keep" or "drop"; ${AGAIN}`, 'rules.spaces'],
+    ['a word-level tally with spaces', (d) => ({ ...d, rules: { ...(d.rules as object), spaces: 'keep' } }), 'BAD_TALLY', `p.tally member rules.spaces: rules: spaces: white space is kept or dropped at the character level only (the word level never makes a token of it); remove it or use level char; ${AGAIN}`, 'rules.spaces'],
     ['a count that is text', (d) => ({ ...d, counts: [['a', '1', 1], ['b', 2, 1]] }), 'BAD_TALLY', `p.tally member counts[0][1]: not a valid tally: counts[0][1]: expected a number, got a string; ${AGAIN}`, 'counts[0][1]'],
     ['an entry of two', (d) => ({ ...d, counts: [['a', 1], ['b', 2, 1]] }), 'BAD_TALLY', `p.tally member counts[0]: not a valid tally: counts[0]: ["a",1] is below the minimum 3; ${AGAIN}`, 'counts[0]'],
     ['an unknown member', (d) => ({ ...d, extra: 1 }), 'BAD_TALLY', `p.tally member (top level): not a valid tally: (top level): unknown member "extra"; ${AGAIN}`, '(top level)'],

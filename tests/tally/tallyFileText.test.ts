@@ -17,8 +17,8 @@ describe('tallyFileText', () => {
       [
         '{',
         '  "format": "lexlock.tally",',
-        '  "formatVersion": 1,',
-        '  "rules": {"level":"word","unicode":"NFKC","case":"lower","drop":[],"collapse":[],"tokenizer":"wink-tokenizer@5.3.0"},',
+        '  "formatVersion": 2,',
+        '  "rules": {"level":"word","unicode":"NFKC","case":"lower","drop":[],"collapse":[],"spaces":null,"tokenizer":"wink-tokenizer@5.3.0"},',
         '  "fields": {"text":"text","label":"topic"},',
         '  "documents": 3,',
         '  "tokens": 5,',

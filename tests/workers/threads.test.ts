@@ -40,7 +40,7 @@ describe('worker threads', () => {
   it('encode the same rows in the same order on 1 and 2 threads', async () => {
     const { tally } = await tallyCorpus(readCorpus(demo, { label: 'topic' }), rules);
     const lexicon = freeze(tally, { cap: 800 });
-    const shape = { length: 32, pad: 'pre', cut: 'post' } as const;
+    const shape = { length: 32, pad: 'start', cut: 'end' } as const;
     const runs: Array<{ rows: number[][]; stats: unknown }> = [];
     for (const threads of [1, 2]) {
       const rows: number[][] = [];
@@ -56,7 +56,7 @@ describe('audit on worker threads', () => {
   it('gives the same report on 1 and 2 threads', async () => {
     const { auditOnThreads } = await import('../../src/pipeline/auditOnThreads.js');
     const { tally } = await tallyCorpus(readCorpus(demo, { label: 'topic' }), rules);
-    const lexicon = freeze(tally, { cap: 600, shape: { length: 40, pad: 'post', cut: 'post' } });
+    const lexicon = freeze(tally, { cap: 600, shape: { length: 40, pad: 'end', cut: 'end' } });
     const one = await auditOnThreads(readCorpus(demo, { label: 'topic' }), lexicon, { threads: 1 });
     const two = await auditOnThreads(readCorpus(demo, { label: 'topic' }), lexicon, { threads: 2 });
     expect(one.oovTokens).toBeGreaterThan(0);

@@ -4,7 +4,7 @@ import type { TextRules } from '../../rules/TextRules.js';
 /** One member that differs between two settings objects: its name and the value in each lexicon. */
 export type MemberDifference<T, K extends keyof T> = { [M in K]: { member: M; a: T[M]; b: T[M] } }[K];
 
-/** A text rule that differs (`member` is one of level, unicode, case, drop, collapse, tokenizer). */
+/** A text rule that differs (`member` is one of level, unicode, case, drop, collapse, spaces, tokenizer). */
 export type RuleDifference = MemberDifference<TextRules, keyof TextRules>;
 
 /** The id layout of a lexicon: where OOV goes and how many reserved tokens lead the token list. */
@@ -71,7 +71,7 @@ export interface LexiconComparison {
   /** True when both have the same fingerprint: they encode every text identically. */
   sameFingerprint: boolean;
   fingerprints: { a: string; b: string };
-  /** The text rules that differ, in the order level, unicode, case, drop, collapse, tokenizer. */
+  /** The text rules that differ, in the order level, unicode, case, drop, collapse, spaces, tokenizer. */
   rules: RuleDifference[];
   /** The layout members that differ, in the order oov, reserved. */
   layout: LayoutDifference[];

@@ -41,7 +41,7 @@ export function renderReport(report: CoverageReport, context: ReportContext): st
     `<meta http-equiv="Content-Security-Policy" content="${POLICY}">`,
     '<meta name="viewport" content="width=device-width, initial-scale=1">',
     '<meta name="generator" content="lexlock">',
-    `<title>Coverage report: ${escapeHtml(context.corpus)}</title>`,
+    `<title>Vocabulary audit: ${escapeHtml(context.corpus)}</title>`,
     `<style>${REPORT_STYLES}</style>`,
     '</head>',
     '<body>',

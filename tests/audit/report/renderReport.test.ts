@@ -28,7 +28,7 @@ const page = renderReport(ferryReport(), ferryContext());
 describe('renderReport', () => {
   it('names the corpus, the lexicon file, its fingerprint and every setting', () => {
     const context = ferryContext();
-    expect(page).toContain('<title>Coverage report: harbourline-support-2031-q2.jsonl</title>');
+    expect(page).toContain('<title>Vocabulary audit: harbourline-support-2031-q2.jsonl</title>');
     expect(page).toContain('lexicons/harbourline-support.lexicon.json');
     expect(page).toContain(`<code class="fingerprint">sha256:${'3f9a0c1d'.repeat(8)}</code>`);
     for (const [key, value] of Object.entries(context.settings)) expect(page).toMatch(new RegExp(`<th scope="row">${key}</th><td><code>${value}</code></td>`));
@@ -97,10 +97,21 @@ describe('renderReport', () => {
       length: { min: 0, p50: 0, p90: 0, p95: 0, p99: 0, max: 0 },
       labels: {},
       topOov: [],
-      suggest: { capFor90: 0, capFor95: 0, capFor99: 0, lengthFor90: 0, lengthFor95: 0, lengthFor99: 0 },
+      suggest: {
+        capFor90: 0,
+        capFor95: 0,
+        capFor99: 0,
+        wholeCapsFor90: { below: 0, above: 0 },
+        wholeCapsFor95: { below: 0, above: 0 },
+        wholeCapsFor99: { below: 0, above: 0 },
+        lengthFor90: 0,
+        lengthFor95: 0,
+        lengthFor99: 0,
+      },
       coverage: [],
       lengthHistogram: [],
       lexicon: { fingerprint: 'sha256:00', tokens: 0, size: 2, reserved: 0 },
+      capTie: null,
     };
     const html = renderReport(empty, ferryContext());
     for (const bad of ['NaN', 'Infinity', 'undefined', 'null']) expect(html).not.toContain(bad);

@@ -162,7 +162,7 @@ describe('the report page in Chromium', () => {
     expect(await p.locator('script').count()).toBe(0);
     const codes = await p.locator('code').allTextContents();
     for (const token of [SCRIPT_TOKEN, 'a&b', '"quoted"', "o'clock"]) expect(codes).toContain(token);
-    expect(await p.title()).toBe('Coverage report: harbourline-support-2031-q2.jsonl');
+    expect(await p.title()).toBe('Vocabulary audit: harbourline-support-2031-q2.jsonl');
     const text = await p.locator('body').innerText();
     expect(text).toContain(`sha256:${'3f9a0c1d'.repeat(8)}`);
     expect(text).toContain('cap (tokens kept, log scale)');

@@ -84,7 +84,7 @@ export function ferryReport(): CoverageReport {
     types: TYPES,
     oovTokens,
     oovRate,
-    shape: { length: LENGTH, pad: 'pre', cut: 'post' },
+    shape: { length: LENGTH, pad: 'start', cut: 'end' },
     truncatedDocuments,
     droppedTokens,
     paddingTokens,
@@ -95,6 +95,10 @@ export function ferryReport(): CoverageReport {
       capFor90: capFor(0.9),
       capFor95: capFor(0.95),
       capFor99: capFor(0.99),
+      // Invented: the fixture's curve has no counts, so the whole-count caps around each are made up.
+      wholeCapsFor90: { below: capFor(0.9) - 40, above: capFor(0.9) + 310 },
+      wholeCapsFor95: { below: capFor(0.95), above: capFor(0.95) },
+      wholeCapsFor99: { below: capFor(0.99) - 1200, above: capFor(0.99) + 5400 },
       lengthFor90: summary.p90,
       lengthFor95: summary.p95,
       lengthFor99: summary.p99,
@@ -102,6 +106,7 @@ export function ferryReport(): CoverageReport {
     coverage,
     lengthHistogram: [...lengths].sort((a, b) => a[0] - b[0]).map(([length, n]) => ({ length, documents: n })),
     lexicon: { fingerprint: `sha256:${'3f9a0c1d'.repeat(8)}`, tokens: CAP + RESERVED, size: CAP + RESERVED + 2, reserved: RESERVED },
+    capTie: { cap: CAP, count: 1, tokens: 9120, kept: 2210, left: 6910, below: CAP - 2210, above: CAP + 6910 },
     drift: {
       oovRate: { fit: 0.0312, now: oovRate },
       length: { fit: { min: 2, p50: 81, p90: 190, p95: 240, p99: 410, max: 2100 }, now: summary },
@@ -127,7 +132,7 @@ export function ferryContext(): ReportContext {
   return {
     corpus: 'harbourline-support-2031-q2.jsonl',
     lexiconFile: 'lexicons/harbourline-support.lexicon.json',
-    settings: { text: 'body', label: 'desk', cap: '20000', length: '256', pad: 'pre', cut: 'post' },
+    settings: { text: 'body', label: 'desk', cap: '20000', length: 'length 256; zeros at the start; long documents lose their end' },
     generatedAt: '2031-07-01T09:30:00Z',
     lexlockVersion: '0.1.0',
   };

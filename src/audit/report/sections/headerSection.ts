@@ -2,6 +2,7 @@ import type { CoverageReport } from '../../CoverageReport.js';
 import { escapeHtml } from '../escapeHtml.js';
 import { formatCount } from '../formatCount.js';
 import type { ReportContext } from '../ReportContext.js';
+import { describeShape } from '../../../lexicon/Shape.js';
 import { htmlTable } from './htmlTable.js';
 import { note } from './note.js';
 
@@ -17,16 +18,16 @@ export function headerSection(report: CoverageReport, context: ReportContext): s
       escapeHtml(
         `${formatCount(cap)} ranked tokens` +
           (report.lexicon.reserved > 0 ? ` + ${formatCount(report.lexicon.reserved)} reserved` : '') +
-          `; input dimension ${formatCount(report.lexicon.size)} (padding and OOV included)`,
+          `; ids 0 to ${formatCount(report.lexicon.size - 1)} (${formatCount(report.lexicon.size)} rows for an embedding, padding and OOV included)`,
       ),
     ],
-    ['Sequence shape', escapeHtml(report.shape === null ? 'none set' : `length ${formatCount(report.shape.length)}, padding ${report.shape.pad}, truncation ${report.shape.cut}`)],
+    ['Sequence shape', escapeHtml(report.shape === null ? 'none set' : describeShape(report.shape))],
     ['Generated', `${escapeHtml(context.generatedAt)} by lexlock ${escapeHtml(context.lexlockVersion)}`],
   ];
   const settings = Object.entries(context.settings).sort(([a], [b]) => (a < b ? -1 : a > b ? 1 : 0));
   return [
     '<header class="report-header">',
-    `<h1>Coverage report <span class="subject">${escapeHtml(context.corpus)}</span></h1>`,
+    `<h1>Vocabulary audit <span class="subject">${escapeHtml(context.corpus)}</span></h1>`,
     '<p class="lede">What the lexicon\'s vocabulary cap and the sequence length cost on this corpus: how many token occurrences fall out of the vocabulary, how many documents lose tokens, and what other settings would give.</p>',
     `<dl class="facts">${facts.map(([k, v]) => `<dt>${escapeHtml(k)}</dt><dd>${v}</dd>`).join('')}</dl>`,
     settings.length === 0 ? note('Settings: none given.') : htmlTable('Settings used for this audit', [{ heading: 'setting' }, { heading: 'value', code: true }], settings),

@@ -44,8 +44,8 @@ export function lengthSection(report: CoverageReport): string {
     (shape === null
       ? 'No sequence length is set, so nothing is truncated or padded. '
       : `${formatCount(report.truncatedDocuments)} documents (${formatPercent(truncatedShare)}) are longer than ${formatCount(shape.length)} tokens and lose ` +
-        `${formatCount(report.droppedTokens)} tokens (${formatPercent(shareOf(report.droppedTokens, report.tokens))} of all) at the ${shape.cut} end; ` +
-        `shorter ones are padded at the ${shape.pad} end. `) +
+        `${formatCount(report.droppedTokens)} tokens (${formatPercent(shareOf(report.droppedTokens, report.tokens))} of all) from their ${shape.cut}; ` +
+        `shorter ones get padding zeros at the ${shape.pad}. `) +
     'Dashed lines: the smallest lengths that keep a share of documents whole (nearest rank): ' +
     suggestions.map(([share, at]) => `${share}${UNIT_SPACE}% (${formatCount(at)} tokens)`).join(', ') +
     '.';

@@ -1,4 +1,6 @@
+import type { WholeCaps } from '../../../lexicon/capTie.js';
 import type { CoverageReport } from '../../CoverageReport.js';
+import { describeCapTie } from '../../describeCapTie.js';
 import { escapeHtml } from '../escapeHtml.js';
 import { formatCount } from '../formatCount.js';
 import { formatPercent } from '../formatPercent.js';
@@ -27,26 +29,33 @@ export function summarySection(report: CoverageReport): string {
     card(
       'Dropped tokens',
       shape === null ? '–' : formatCount(report.droppedTokens),
-      shape === null ? 'no sequence length set' : `${formatPercent(shareOf(report.droppedTokens, report.tokens))} of all tokens, cut at the ${shape.cut} end`,
+      shape === null ? 'no sequence length set' : `${formatPercent(shareOf(report.droppedTokens, report.tokens))} of all tokens, cut from the ${shape.cut} of long documents`,
     ),
     card(
       'Padding tokens',
       shape === null ? '–' : formatCount(report.paddingTokens),
-      shape === null ? 'no sequence length set' : `${formatPercent(shareOf(report.paddingTokens, slots))} of the ${formatCount(slots)} ids, at the ${shape.pad} end`,
+      shape === null ? 'no sequence length set' : `${formatPercent(shareOf(report.paddingTokens, slots))} of the ${formatCount(slots)} ids, zeros at the ${shape.pad} of short rows`,
     ),
   ];
-  const rows: Array<[string, string, string]> = [
-    ['90 %', formatCount(s.capFor90), formatCount(s.lengthFor90)],
-    ['95 %', formatCount(s.capFor95), formatCount(s.lengthFor95)],
-    ['99 %', formatCount(s.capFor99), formatCount(s.lengthFor99)],
+  const whole = (w: WholeCaps) => (w.below === w.above ? 'the same' : `${formatCount(w.below)} or ${formatCount(w.above)}`);
+  const rows: Array<[string, string, string, string]> = [
+    ['90 %', formatCount(s.capFor90), whole(s.wholeCapsFor90), formatCount(s.lengthFor90)],
+    ['95 %', formatCount(s.capFor95), whole(s.wholeCapsFor95), formatCount(s.lengthFor95)],
+    ['99 %', formatCount(s.capFor99), whole(s.wholeCapsFor99), formatCount(s.lengthFor99)],
   ];
   const suggestions =
-    '<table class="suggestions"><caption>Suggestions: the smallest cap that covers a share of token occurrences, and the smallest length that keeps that share of documents whole</caption>' +
-    '<thead><tr><th scope="col">share</th><th scope="col" class="num">cap (tokens kept)</th><th scope="col" class="num">length (tokens per document)</th></tr></thead><tbody>' +
-    rows.map(([share, cap, length]) => `<tr><th scope="row">${escapeHtml(share)}</th><td class="num">${escapeHtml(cap)}</td><td class="num">${escapeHtml(length)}</td></tr>`).join('') +
+    '<table class="suggestions"><caption>Suggestions: the smallest cap that covers a share of token occurrences, the nearest caps that keep whole counts (no token chosen by string order among tokens of equal count), and the smallest length that keeps that share of documents whole</caption>' +
+    '<thead><tr><th scope="col">share</th><th scope="col" class="num">cap (tokens kept)</th><th scope="col" class="num">caps keeping whole counts</th><th scope="col" class="num">length (tokens per document)</th></tr></thead><tbody>' +
+    rows
+      .map(([share, cap, wholeCaps, length]) => `<tr><th scope="row">${escapeHtml(share)}</th><td class="num">${escapeHtml(cap)}</td><td class="num">${escapeHtml(wholeCaps)}</td><td class="num">${escapeHtml(length)}</td></tr>`)
+      .join('') +
     '</tbody></table>';
+  const tie =
+    report.capTie === null
+      ? ''
+      : `<p class="cap-tie"><strong>The lexicon's cap cuts through a tie.</strong> ${escapeHtml(describeCapTie(report.capTie))} (in the corpus the lexicon was built from).</p>`;
   const lengths =
     `<p class="percentiles">Tokens per document (nearest rank): min ${escapeHtml(formatCount(l.min))} · median ${escapeHtml(formatCount(l.p50))} · ` +
     `p90 ${escapeHtml(formatCount(l.p90))} · p95 ${escapeHtml(formatCount(l.p95))} · p99 ${escapeHtml(formatCount(l.p99))} · max ${escapeHtml(formatCount(l.max))}</p>`;
-  return `<section id="summary"><h2>Summary</h2><div class="cards">${cards.join('')}</div>${lengths}${suggestions}</section>`;
+  return `<section id="summary"><h2>Summary</h2><div class="cards">${cards.join('')}</div>${tie}${lengths}${suggestions}</section>`;
 }

@@ -6,7 +6,7 @@ import { fileURLToPath, pathToFileURL } from 'node:url';
 import fc from 'fast-check';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { isLexlockError, type LexlockError } from '../../src/LexlockError.js';
-import { openAtomic, writeFileAtomic } from '../../src/files/atomicWrite.js';
+import { openAtomic, writeWhole } from '../../src/files/writeWhole.js';
 import { tempPathFor } from '../../src/files/AtomicFile.js';
 import { caughtError } from '../helpers/caughtError.js';
 
@@ -36,7 +36,7 @@ afterAll(async () => {
   await rm(root, { recursive: true, force: true });
 });
 
-describe('writeFileAtomic', () => {
+describe('writeWhole', () => {
   it.each([
     ['a string, as UTF-8', 'ferry timetable: späť\n', new TextEncoder().encode('ferry timetable: späť\n')],
     ['bytes, as given', new Uint8Array([0, 255, 10, 13]), new Uint8Array([0, 255, 10, 13])],
@@ -44,7 +44,7 @@ describe('writeFileAtomic', () => {
   ])('writes %s and leaves no temporary file', async (_what, data, bytes) => {
     const dir = await folder();
     const path = join(dir, 'lex.json');
-    await writeFileAtomic(path, data);
+    await writeWhole(path, data);
     expect(new Uint8Array(await readFile(path))).toEqual(bytes);
     expect(await readdir(dir)).toEqual(['lex.json']);
   });
@@ -53,7 +53,7 @@ describe('writeFileAtomic', () => {
     const dir = await folder();
     const path = join(dir, 'lex.json');
     await writeFile(path, 'old contents that are longer than the new ones');
-    await writeFileAtomic(path, 'new');
+    await writeWhole(path, 'new');
     expect(await readFile(path, 'utf8')).toBe('new');
     expect(await readdir(dir)).toEqual(['lex.json']);
   });
@@ -61,7 +61,7 @@ describe('writeFileAtomic', () => {
   it('fails with IO naming the path when the parent folder does not exist', async () => {
     const dir = await folder();
     const path = join(dir, 'missing', 'lex.json');
-    const error = await caughtError(() => writeFileAtomic(path, 'x'));
+    const error = await caughtError(() => writeWhole(path, 'x'));
     expect(error.code).toBe('IO');
     // "no such file or directory" is the C library's strerror(ENOENT) text, which libuv reports (common practice).
     expect(error.message).toBe(
@@ -75,7 +75,7 @@ describe('writeFileAtomic', () => {
     const dir = await folder();
     const path = join(dir, 'out');
     await mkdir(join(path, 'inside'), { recursive: true });
-    const error = await caughtError(() => writeFileAtomic(path, 'x'));
+    const error = await caughtError(() => writeWhole(path, 'x'));
     // rename(2): EISDIR "newpath is an existing directory, but oldpath is not a directory" (Linux man-pages).
     expect(error.message).toBe(`${path}: could not write the file (EISDIR: illegal operation on a directory, while renaming the temporary file over it)${SUFFIX}`);
     expect(await readdir(dir)).toEqual(['out']);
@@ -92,11 +92,11 @@ describe('writeFileAtomic', () => {
     try {
       let message: string;
       if (process.getuid?.() !== 0) {
-        message = (await caughtError(() => writeFileAtomic(path, 'new'))).message;
+        message = (await caughtError(() => writeWhole(path, 'new'))).message;
       } else {
         for (let d = dir; d !== dirname(d); d = dirname(d)) if (d.startsWith(tmpdir()) && d !== tmpdir()) await chmod(d, d === dir ? 0o555 : 0o755);
-        const module = pathToFileURL(join(fileURLToPath(import.meta.url), '../../../src/files/atomicWrite.ts')).href;
-        const script = `process.setgid(65534); process.setuid(65534); const { writeFileAtomic } = await import(${JSON.stringify(module)}); try { await writeFileAtomic(${JSON.stringify(path)}, 'new'); } catch (e) { process.stdout.write(e.message); }`;
+        const module = pathToFileURL(join(fileURLToPath(import.meta.url), '../../../src/files/writeWhole.ts')).href;
+        const script = `process.setgid(65534); process.setuid(65534); const { writeWhole } = await import(${JSON.stringify(module)}); try { await writeWhole(${JSON.stringify(path)}, 'new'); } catch (e) { process.stdout.write(e.message); }`;
         const child = spawnSync(process.execPath, ['--import', 'tsx', '--input-type=module', '-e', script], { encoding: 'utf8', cwd: join(fileURLToPath(import.meta.url), '../../..') });
         expect(child.stderr).toBe('');
         message = child.stdout;
@@ -114,7 +114,7 @@ describe('writeFileAtomic', () => {
     const path = join(dir, 'blob.bin');
     await fc.assert(
       fc.asyncProperty(fc.uint8Array({ maxLength: 5000 }), async (bytes) => {
-        await writeFileAtomic(path, bytes);
+        await writeWhole(path, bytes);
         expect(new Uint8Array(await readFile(path))).toEqual(bytes);
         expect(await readdir(dir)).toEqual(['blob.bin']);
       }),
