@@ -13,10 +13,61 @@ export function lexiconDocument(lexicon: Lexicon): LexiconFile {
   };
 }
 
+/** Objects of plain values up to this long are written on one line: rules, layout, shape, figures. */
+const ONE_LINE = 160;
+
+function isFlat(value: object): boolean {
+  return Object.values(value).every((v) => v === null || typeof v !== 'object' || (Array.isArray(v) && v.every((x) => x === null || typeof x !== 'object')));
+}
+
+function write(value: unknown, indent: string, out: string[]): void {
+  if (value === null || typeof value !== 'object') {
+    out.push(JSON.stringify(value));
+    return;
+  }
+  const inner = `${indent}  `;
+  if (Array.isArray(value)) {
+    if (value.length === 0) {
+      out.push('[]');
+      return;
+    }
+    out.push('[');
+    value.forEach((item, i) => {
+      out.push(`\n${inner}`);
+      write(item, inner, out);
+      if (i < value.length - 1) out.push(',');
+    });
+    out.push(`\n${indent}]`);
+    return;
+  }
+  const compact = JSON.stringify(value);
+  if (isFlat(value) && compact.length <= ONE_LINE) {
+    out.push(compact);
+    return;
+  }
+  const entries = Object.entries(value).filter(([, v]) => v !== undefined);
+  if (entries.length === 0) {
+    out.push('{}');
+    return;
+  }
+  out.push('{');
+  entries.forEach(([key, v], i) => {
+    out.push(`\n${inner}${JSON.stringify(key)}: `);
+    write(v, inner, out);
+    if (i < entries.length - 1) out.push(',');
+  });
+  out.push(`\n${indent}}`);
+}
+
 /**
- * The lexicon file's text: JSON, two-space indented, one token a line so diffs stay readable.
+ * The lexicon file's text: JSON, two-space indented, one token a line so diffs stay readable, and each
+ * small object of plain values (rules, layout, shape, figures) on one line:
+ * `"shape": {"length":96,"pad":"start","cut":"end"}`.
  * Browser-safe; `parseLexicon(serializeLexicon(x))` encodes exactly as `x`.
  */
 export function serializeLexicon(lexicon: Lexicon): string {
-  return `${JSON.stringify(lexiconDocument(lexicon), null, 2)}\n`;
+  const out: string[] = [];
+  write(lexiconDocument(lexicon), '', out);
+  out.push('\n');
+  return out.join('');
 }

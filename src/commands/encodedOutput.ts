@@ -137,10 +137,17 @@ async function npyOutput(folder: string, shape: Shape, manifest: (stats: EncodeS
   };
 }
 
+/**
+ * The version of an encoded folder's manifest.json. Version 2: the shape's ends are `start`/`end`
+ * (the manifest of lexlock 0.1 carried no version and other names for them).
+ */
+export const MANIFEST_FORMAT_VERSION = 2;
+
 function manifest(stats: EncodeStats, labelled: boolean, shape: Shape | null, source: EncodedSource): object {
   const { lexicon, lexiconPath, corpus, readStats } = source;
   return {
     format: 'lexlock.encoded',
+    formatVersion: MANIFEST_FORMAT_VERSION,
     lexlockVersion: VERSION,
     lexicon: { fingerprint: lexicon.fingerprint, file: lexiconPath, size: lexicon.size, oovId: lexicon.oovId },
     source: corpus,

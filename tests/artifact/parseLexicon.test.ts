@@ -42,6 +42,17 @@ describe('parseLexicon', () => {
     expect(Array.from(back.encode('the ferry was very late'))).toEqual(Array.from(lex.encode('the ferry was very late')));
   });
 
+  it('writes one token a line and each small object of plain values on one line', () => {
+    const lines = text.split('\n');
+    expect(lines).toContain('    "shape": {"length":6,"pad":"start","cut":"end"}');
+    expect(lines).toContain('    "rules": {"level":"word","unicode":"NFKC","case":"lower","drop":[],"collapse":[],"spaces":null,"tokenizer":"wink-tokenizer@5.3.0"},');
+    expect(lines).toContain('    "layout": {"oov":"first","reserved":0},');
+    expect(lines).toContain('      "ferry",');
+    expect(text.endsWith('\n}\n')).toBe(true);
+    // The same document as JSON.stringify gives, only laid out differently.
+    expect(JSON.parse(text)).toEqual(JSON.parse(JSON.stringify({ format: 'lexlock.lexicon', formatVersion: 2, fingerprint: lex.fingerprint, fit: lex.fit, canaries: lex.canaries, encoding: lex.encoding })));
+  });
+
   const sameTokensElsewhere = (): Doc => {
     const d = doc();
     d.encoding.tokens[1] = d.encoding.tokens[0];

@@ -50,6 +50,8 @@ describe('lexlock encode', () => {
     expect((await readNpy(tmp.path('out/lengths.npy'))).data).toEqual([4, 2, 3, 3]);
     expect((await readNpy(tmp.path('out/labels.npy'))).data).toEqual([0, 1, 0, -1]);
     const manifest = JSON.parse(await readFile(tmp.path('out/manifest.json'), 'utf8'));
+    expect([manifest.format, manifest.formatVersion]).toEqual(['lexlock.encoded', 2]);
+    expect(manifest.shape).toEqual({ length: 4, pad: 'start', cut: 'end' });
     expect(manifest.rows).toBe(4);
     expect(manifest.unknownLabels).toBe(1);
     expect(manifest.replacedDocuments).toBe(0);

@@ -21,7 +21,7 @@ export function readmeBlocks(markdown: string): ReadmeBlock[] {
 
 /**
  * Turns the README's `expression; // result` lines into checks: a result written as
- * `Int32Array(n) [a, b, …]` or as an array literal of numbers and single-quoted strings must equal what
+ * `Int32Array(n) [a, b, …]` or as an array literal of numbers and quoted strings must equal what
  * the expression gives. Other lines are left as they are.
  */
 export function withChecks(code: string): string {
@@ -31,13 +31,20 @@ export function withChecks(code: string): string {
       const m = /^(\s*)(?:const \w+ = )?(.+?);\s*\/\/\s*(Int32Array\((\d+)\) )?(\[[^\]]*\])\s*$/.exec(line);
       if (m === null) return line;
       const [, indent, expression, , length, list] = m as unknown as [string, string, string, string | undefined, string | undefined, string];
-      const expected = JSON.stringify(JSON.parse((list as string).replace(/'/g, '"')));
+      const expected = JSON.stringify(JSON.parse(asJson(list as string)));
       const declared = /^(\s*)const (\w+) = /.exec(line);
       const value = declared === null ? `(${expression})` : declared[2];
       const check = `__check(${value}, ${expected}, ${length ?? 'null'}, ${JSON.stringify(line.trim())});`;
       return declared === null ? `${indent}${check}` : `${line}\n${indent}${check}`;
     })
     .join('\n');
+}
+
+/** A result list as written in the README (strings in single or double quotes) as JSON text. */
+function asJson(list: string): string {
+  return list.replace(/'((?:[^'\\]|\\.)*)'|"((?:[^"\\]|\\.)*)"/g, (_m, single: string | undefined, double: string | undefined) =>
+    single === undefined ? `"${double}"` : JSON.stringify(single.replace(/\\'/g, "'")),
+  );
 }
 
 /** The checking function the rewritten blocks call. */
