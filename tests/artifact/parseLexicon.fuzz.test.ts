@@ -14,6 +14,12 @@ import { resolveRules, type TextRulesInput } from '../../src/rules/TextRules.js'
 import { tokenize } from '../../src/rules/tokenize.js';
 import { Tally } from '../../src/tally/Tally.js';
 import { tempFolder } from '../helpers/tempFolder.js';
+
+/** `text` with the first `from` replaced; fails the test when `text` has no `from` (so a case cannot pass unchanged). */
+function replacedOnce(text: string, from: string, to: string): string {
+  if (!text.includes(from)) throw new Error(`the lexicon text has no ${from}: the case would test nothing`);
+  return text.replace(from, to);
+}
 import {
   BASE_TEXTS,
   BASES,
@@ -464,8 +470,8 @@ describe('parseLexicon refuses one case of each kind, with this message', () => 
       `${SOURCE} member encoding.tokens[0]: not a valid lexicon: encoding.tokens[0]: expected a string, got a number; encoding.tokens[1]: expected a string, got a number; encoding.tokens[2]: expected a string, got a number (and 99997 more); ${REBUILD}`,
     ],
     // 10,000 levels of nesting, in a member and as the whole text.
-    ['deep arrays in a member', () => BASE_TEXTS[0]!.replace('"level": "word"', `"level": ${deepArrayText(10_000)}`), 'BAD_LEXICON', schemaMessage('encoding.rules.level', 'expected "word" or "char", got an array of 1 item')],
-    ['deep objects in a member', () => BASE_TEXTS[0]!.replace('"formatVersion": 2', `"formatVersion": ${deepObjectText(10_000)}`), 'BAD_LEXICON', `${SOURCE} member formatVersion: formatVersion is an object with 1 member, not a format version (a whole number from 1); ${REBUILD}`],
+    ['deep arrays in a member', () => replacedOnce(BASE_TEXTS[0]!, '"level":"word"', `"level": ${deepArrayText(10_000)}`), 'BAD_LEXICON', schemaMessage('encoding.rules.level', 'expected "word" or "char", got an array of 1 item')],
+    ['deep objects in a member', () => replacedOnce(BASE_TEXTS[0]!, '"formatVersion": 2', `"formatVersion": ${deepObjectText(10_000)}`), 'BAD_LEXICON', `${SOURCE} member formatVersion: formatVersion is an object with 1 member, not a format version (a whole number from 1); ${REBUILD}`],
     ['deep arrays as the whole text', () => deepArrayText(10_000), 'NOT_A_LEXICON', NOT_A_LEXICON],
     ['deep objects as the whole text', () => deepObjectText(10_000), 'NOT_A_LEXICON', NOT_A_LEXICON],
     // V8 (Node 20) parses nesting iteratively: even a million levels are read, then refused as no lexicon.
@@ -522,7 +528,7 @@ describe('parseLexicon refuses one case of each kind, with this message', () => 
     ['collapsed types at the char level', () => { const d = baseDoc(2); (enc(d).rules as JsonObject).collapse = ['number']; return signed(d); }, 'BAD_LEXICON', `${SOURCE} member encoding.rules.collapse: encoding.rules.collapse: token types are dropped or collapsed at the word level only, but encoding.rules.level is "char"; ${REBUILD}`],
     ['unsorted labels', () => { const d = doc0(); enc(d).labels = ['praise', 'delays', 'refunds']; return signed(d); }, 'BAD_LEXICON', `${SOURCE} member encoding.labels[1]: labels must be distinct and in JavaScript string order ("praise" then "delays"); ${REBUILD}`],
     // JSON text may spell a lone surrogate (RFC 8259 §8.2); canonical JSON (RFC 8785 §3.2.2.2) cannot hash it.
-    ['a lone surrogate in a token', () => BASE_TEXTS[0]!.replace('"<start>"', '"<start\\ud800>"'), 'BAD_LEXICON', schemaMessage('encoding.tokens[0]', 'a string holds a lone surrogate (half a UTF-16 pair), which no lexicon can hash')],
+    ['a lone surrogate in a token', () => replacedOnce(BASE_TEXTS[0]!, '"<start>"', '"<start\\ud800>"'), 'BAD_LEXICON', schemaMessage('encoding.tokens[0]', 'a string holds a lone surrogate (half a UTF-16 pair), which no lexicon can hash')],
     // Byte-level damage.
     ['a truncated text', () => BASE_TEXTS[0]!.slice(0, 200), 'NOT_JSON', `${SOURCE}: not JSON (${jsonParseMessage(BASE_TEXTS[0]!.slice(0, 200))}); pass a lexicon file written by lexlock build`],
     ['garbage after the document', () => `${BASE_TEXTS[0]!}}`, 'NOT_JSON', `${SOURCE}: not JSON (${jsonParseMessage(`${BASE_TEXTS[0]!}}`)}); pass a lexicon file written by lexlock build`],
