@@ -235,7 +235,7 @@ function checkRefusal(e: LexlockError, m: Mutated): void {
   if (field === undefined) throw new Error(`no member named: ${e.message}`);
   expect(e.message.startsWith(`${SOURCE} member ${field}: `), e.message).toBe(true);
   if (top === 'formatVersion') {
-    expect([e.code, field]).toEqual([expect.stringMatching(/^(BAD_LEXICON|NEWER_FORMAT)$/), 'formatVersion']);
+    expect([e.code, field]).toEqual([expect.stringMatching(/^(BAD_LEXICON|NEWER_FORMAT|OLD_FORMAT)$/), 'formatVersion']);
     return;
   }
   switch (e.code) {

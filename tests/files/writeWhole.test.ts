@@ -96,7 +96,9 @@ describe('writeWhole', () => {
       } else {
         for (let d = dir; d !== dirname(d); d = dirname(d)) if (d.startsWith(tmpdir()) && d !== tmpdir()) await chmod(d, d === dir ? 0o555 : 0o755);
         const module = pathToFileURL(join(fileURLToPath(import.meta.url), '../../../src/files/writeWhole.ts')).href;
-        const script = `process.setgid(65534); process.setuid(65534); const { writeWhole } = await import(${JSON.stringify(module)}); try { await writeWhole(${JSON.stringify(path)}, 'new'); } catch (e) { process.stdout.write(e.message); }`;
+        // The module is loaded before the child drops to nobody: the checkout may sit in a folder only root
+        // may enter (mktemp -d makes mode 700), which nobody could not read.
+        const script = `const { writeWhole } = await import(${JSON.stringify(module)}); process.setgid(65534); process.setuid(65534); try { await writeWhole(${JSON.stringify(path)}, 'new'); } catch (e) { process.stdout.write(e.message); }`;
         const child = spawnSync(process.execPath, ['--import', 'tsx', '--input-type=module', '-e', script], { encoding: 'utf8', cwd: join(fileURLToPath(import.meta.url), '../../..') });
         expect(child.stderr).toBe('');
         message = child.stdout;
