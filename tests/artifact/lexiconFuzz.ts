@@ -52,8 +52,9 @@ export const BASES: readonly { name: string; lexicon: Lexicon }[] = (() => {
       lexicon: freeze(Tally.fromTexts(texts, resolveRules({ drop: ['punctuation'], collapse: ['number'] })), { oov: 'last', cap: 6, now }),
     },
     {
-      name: 'char level, labels left out, shape, OOV last',
-      lexicon: freeze(Tally.fromTexts(FERRY_REVIEWS, resolveRules({ level: 'char', unicode: 'NFC', case: 'keep' })), {
+      name: 'char level, spaces dropped, no cap, labels left out, shape, OOV last',
+      lexicon: freeze(Tally.fromTexts(FERRY_REVIEWS, resolveRules({ level: 'char', unicode: 'NFC', case: 'keep', spaces: 'drop' })), {
+        cap: null,
         oov: 'last',
         labels: false,
         shape: { length: 30, pad: 'end', cut: 'start' },
@@ -62,6 +63,7 @@ export const BASES: readonly { name: string; lexicon: Lexicon }[] = (() => {
     },
     { name: 'no fit and no canaries', lexicon: new Lexicon(shaped.encoding) },
     { name: 'only a reserved token (cap 0)', lexicon: freeze(Tally.fromTexts(texts, resolveRules()), { cap: 0, reserved: ['<start>'], now }) },
+    { name: 'char level, spaces kept', lexicon: freeze(Tally.fromTexts(texts, resolveRules({ level: 'char' })), { cap: 12, now }) },
   ];
 })();
 
