@@ -39,6 +39,7 @@ export type LexlockErrorCode =
   | 'UNKNOWN_LABEL'
   | 'BAD_TEXT'
   | 'RECORD_TOO_LARGE'
+  | 'NOT_A_FILE'
   | 'OUTPUT_EXISTS'
   | 'OUTPUT_SYMLINK'
   | 'IO'
