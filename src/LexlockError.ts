@@ -40,6 +40,7 @@ export type LexlockErrorCode =
   | 'BAD_TEXT'
   | 'RECORD_TOO_LARGE'
   | 'NOT_A_FILE'
+  | 'FILE_TOO_LARGE'
   | 'OUTPUT_EXISTS'
   | 'OUTPUT_SYMLINK'
   | 'IO'
