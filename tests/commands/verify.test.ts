@@ -1,6 +1,7 @@
 import { readFile, writeFile } from 'node:fs/promises';
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
 import { cli, tempFolder } from '../helpers/cli.js';
+import { MAIN_HELP } from '../../src/cli.js';
 
 let tmp: Awaited<ReturnType<typeof tempFolder>>;
 beforeEach(async () => {
@@ -62,5 +63,17 @@ describe('lexlock', () => {
     expect([r.code, r.stderr]).toEqual([2, 'lexlock: unknown command "train"; the commands are build, encode, verify, audit, compare, tally, merge (lexlock --help)\n']);
     expect((await cli('--help')).stdout).toContain('lexlock build <corpus> -o <lexicon.json>');
     expect((await cli('build', '--help')).stdout).toContain('--min-count N');
+  });
+
+  // Common practice (POSIX utility conventions): usage asked for goes to stdout with exit 0; usage
+  // printed because the call was wrong goes to stderr with the usage error status, so a pipe sees none.
+  it('without a command prints the usage on stderr and exits 2; --help prints it on stdout and exits 0', async () => {
+    const bare = await cli();
+    expect([bare.code, bare.stdout, bare.stderr]).toEqual([2, '', MAIN_HELP]);
+    expect(MAIN_HELP).toMatch(/^lexlock \d+\.\d+\.\d+: one fingerprinted lexicon file/);
+    for (const flag of ['--help', '-h', 'help']) {
+      const asked = await cli(flag);
+      expect([asked.code, asked.stdout, asked.stderr]).toEqual([0, MAIN_HELP, '']);
+    }
   });
 });
