@@ -2,6 +2,7 @@ import type { CoverageReport } from '../audit/CoverageReport.js';
 import { describeCapTie } from '../audit/describeCapTie.js';
 import type { WholeCaps } from '../lexicon/capTie.js';
 import type { Paint } from './colour.js';
+import { identifyingRows } from './describeLexicon.js';
 import { count, counted, percent, percentsApart } from './format.js';
 
 /** Thresholds the audit gates on (shares, 0…1), and which are crossed. */
@@ -78,6 +79,7 @@ export function auditSummary(report: CoverageReport, heading: string, gates: Gat
     `90 % of tokens: ${cover(s.capFor90, s.wholeCapsFor90)}, 95 %: ${cover(s.capFor95, s.wholeCapsFor95)}, 99 %: ${cover(s.capFor99, s.wholeCapsFor99)} (lexicon has ${count(report.lexicon.tokens - report.lexicon.reserved)})`,
   ]);
   if (report.capTie !== null) rows.push(['lexicon cap', describeCapTie(report.capTie)]);
+  rows.push(...identifyingRows(report.identifyingTokens));
   rows.push(['lengths that fit', `90 % of documents: ${s.lengthFor90}, 95 %: ${s.lengthFor95}, 99 %: ${s.lengthFor99}`]);
   if (report.topOov.length > 0) {
     rows.push(['top OOV', report.topOov.slice(0, 10).map((t) => `${t.token} (${count(t.count)})`).join(', ')]);

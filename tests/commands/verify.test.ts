@@ -18,10 +18,12 @@ describe('lexlock verify', () => {
     const r = await cli('verify', tmp.path('lex.json'));
     const fingerprint = JSON.parse(await readFile(tmp.path('lex.json'), 'utf8')).fingerprint as string;
     expect(r.code).toBe(0);
-    expect(r.stdout.split('\n')[0]).toBe(`ok ${tmp.path('lex.json')}: schema, fingerprint and 10 canaries check out`);
+    expect(r.stdout.split('\n')[0]).toBe(`ok ${tmp.path('lex.json')}: schema, fingerprint and 8 canaries check out`);
     expect(r.stdout).toContain(`fingerprint      ${fingerprint}`);
     const json = JSON.parse((await cli('verify', tmp.path('lex.json'), '--json')).stdout);
-    expect(json).toEqual({ ok: true, fingerprint, formatVersion: 2, tokens: 6, size: 8, labels: 0, canaries: 10 });
+    const none = { tokens: 0, examples: [] };
+    const identifyingTokens = { tokens: 0, email: none, url: none, mention: none, phone: none, ip: none };
+    expect(json).toEqual({ ok: true, fingerprint, formatVersion: 2, tokens: 6, size: 8, labels: 0, canaries: 8, identifyingTokens });
     // verify --help lists every member --json prints.
     const help = (await cli('verify', '--help')).stdout;
     for (const member of Object.keys(json)) expect(help).toContain(`"${member}"`);
