@@ -71,8 +71,15 @@ export function isPhoneLike(token: string): boolean {
 // One tokenizer instance with default settings, as the word level uses.
 const wink = winkTokenizer();
 
-/** Tokens that can be none of the kinds: no `@`, no `:` (a URL's scheme), no digit. Skips wink for most words. */
-const NOTHING_TO_TAG = /^[^@:0-9]*$/;
+/** Tokens wink may tag `email`, `url` or `mention`: those with an `@` or a `:` (a URL's scheme). */
+const MAY_BE_ADDRESS = /[@:]/;
+
+/**
+ * Digits, points and hyphens only. Every such token that {@link IPV4} or {@link PHONE_LIKE} matches is
+ * one `number` to wink-tokenizer (its number rule takes digits joined by single `.`, `,`, `-` or `/`;
+ * tests/audit/identifyingTokens.test.ts checks it), so these are decided without calling wink.
+ */
+const DIGITS_AND_DOTS = /^[\d.-]+$/;
 
 /**
  * The identifying kind of one vocabulary token, or null: wink-tokenizer (default settings, as the word
@@ -81,7 +88,8 @@ const NOTHING_TO_TAG = /^[^@:0-9]*$/;
  * @example identifyingKindOf('help.desk@harbour.example') // 'email'
  */
 export function identifyingKindOf(token: string): IdentifyingKind | null {
-  if (NOTHING_TO_TAG.test(token)) return null;
+  if (DIGITS_AND_DOTS.test(token)) return IPV4.test(token) ? 'ip' : isPhoneLike(token) ? 'phone' : null;
+  if (!MAY_BE_ADDRESS.test(token)) return null;
   const tagged = wink.tokenize(token);
   if (tagged.length !== 1 || tagged[0]?.value !== token) return null;
   switch (tagged[0].tag) {

@@ -1,6 +1,7 @@
 import { isIPv4 } from 'node:net';
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
+import winkTokenizer from 'wink-tokenizer';
 import { IPV4, collapseAdvice, identifyingKindOf, identifyingTokens, identifyingTokensOf, shortExample } from '../../src/audit/identifyingTokens.js';
 import { freeze } from '../../src/lexicon/freeze.js';
 import { resolveRules } from '../../src/rules/TextRules.js';
@@ -45,6 +46,25 @@ describe('identifyingKindOf', () => {
     ['', null],
   ])('%j is %s', (token, kind) => {
     expect(identifyingKindOf(token)).toBe(kind);
+  });
+
+  // identifyingKindOf decides tokens of digits, points and hyphens without wink: every one it calls an
+  // IP or phone-like must be one token that wink-tokenizer itself tags `number`.
+  it('calls a token an IP or phone-like only where wink-tokenizer tags it one number (property)', () => {
+    const wink = winkTokenizer();
+    const token = fc.array(fc.constantFrom('0', '1', '5', '9', '.', '-'), { minLength: 1, maxLength: 20 }).map((a) => a.join(''));
+    const groups = fc.array(fc.stringMatching(/^\d{1,4}$/), { minLength: 1, maxLength: 5 }).chain((g) => fc.constantFrom('.', '-').map((sep) => g.join(sep)));
+    let found = 0;
+    fc.assert(
+      fc.property(fc.oneof(token, groups), (t) => {
+        const kind = identifyingKindOf(t);
+        if (kind === null) return;
+        found += 1;
+        expect(wink.tokenize(t).map((w) => [w.value, w.tag])).toEqual([[t, 'number']]);
+      }),
+      { numRuns: 3000 },
+    );
+    expect(found).toBeGreaterThan(100);
   });
 
   // Reference: Node's own net.isIPv4 (a general-purpose library outside the project).
