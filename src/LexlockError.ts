@@ -39,6 +39,8 @@ export type LexlockErrorCode =
   | 'UNKNOWN_LABEL'
   | 'BAD_TEXT'
   | 'RECORD_TOO_LARGE'
+  | 'NOT_A_FILE'
+  | 'FILE_TOO_LARGE'
   | 'OUTPUT_EXISTS'
   | 'OUTPUT_SYMLINK'
   | 'IO'

@@ -54,14 +54,20 @@ Run lexlock <command> --help for a command's flags.
 /**
  * Runs the CLI on `argv` (without the node and script names) and returns the exit code:
  * 0 ok, 1 bad input, 2 bad usage, 3 audit threshold crossed (130 and 143 come from the executable,
- * when a signal stops it: src/bin.ts). Errors are printed as one line.
+ * when a signal stops it: src/bin.ts). Errors are printed as one line; no command at all prints the
+ * usage on stderr (exit 2).
  * @example const code = await run(['verify', 'lexicon.json'], { stdout: process.stdout, stderr: process.stderr, env: process.env });
  */
 export async function run(argv: readonly string[], io: Io): Promise<number> {
   const [name, ...rest] = argv;
-  if (name === undefined || name === '--help' || name === '-h' || name === 'help') {
+  if (name === undefined) {
+    // Called wrongly: the usage goes where errors go, so a pipe reading stdout gets nothing.
+    io.stderr.write(MAIN_HELP);
+    return EXIT.usage;
+  }
+  if (name === '--help' || name === '-h' || name === 'help') {
     io.stdout.write(MAIN_HELP);
-    return name === undefined ? EXIT.usage : EXIT.ok;
+    return EXIT.ok;
   }
   if (name === '--version' || name === '-V') {
     io.stdout.write(`${VERSION}\n`);

@@ -26,6 +26,15 @@ export { PROBE_TEXTS } from './artifact/canaries.js';
 export { FORMAT_VERSION, LEXICON_FORMAT, type Encoding, type Fit, type Canary, type LexiconFile } from './artifact/schema.js';
 export { auditCorpus, type AuditOptions } from './audit/auditCorpus.js';
 export type { CoverageReport, LabelAudit, TokenCount, Suggestions, Drift } from './audit/CoverageReport.js';
+export {
+  identifyingTokens,
+  identifyingTokensOf,
+  IDENTIFYING_KINDS,
+  type IdentifyingTokens,
+  type IdentifyingKind,
+  type IdentifyingKindCount,
+} from './audit/identifyingTokens.js';
+export { JSON_FILE_MOST_BYTES } from './artifact/jsonFileLimit.js';
 export { renderReport, type ReportContext } from './audit/report/renderReport.js';
 export { compareLexicons, type CompareOptions } from './audit/compareLexicons.js';
 export type { LexiconComparison } from './audit/compare/LexiconComparison.js';

@@ -5,6 +5,7 @@ import { checkEncoding } from './checkEncoding.js';
 import { decodeLexiconBytes } from './decodeLexiconBytes.js';
 import { describeIssue, memberPath } from './describeIssue.js';
 import { fingerprintOf } from './fingerprint.js';
+import { withoutBom } from './jsonFileLimit.js';
 import { migrate } from './migrate.js';
 import { previewValue } from './previewValue.js';
 import { lexiconFileSchema, type Encoding } from './schema.js';
@@ -82,14 +83,15 @@ function shortName(name: string): string {
 /**
  * Reads a lexicon from its JSON text, its UTF-8 bytes or its parsed object: UTF-8, format and
  * version, schema, fingerprint, duplicate tokens and canaries are all checked; anything wrong is a
- * LexlockError naming the member. Browser-safe.
+ * LexlockError naming the member. A leading byte order mark is dropped (the fingerprint covers
+ * `encoding`, not the file's bytes); bytes over `JSON_FILE_MOST_BYTES` are `FILE_TOO_LARGE`. Browser-safe.
  * @example const lexicon = parseLexicon(await (await fetch('/lexicon.json')).text(), { expectFingerprint: model.fingerprint });
  */
 export function parseLexicon(input: string | Uint8Array | object, options: ParseLexiconOptions = {}): Lexicon {
   const where: Where = options.source === undefined ? {} : { file: options.source };
   let raw: unknown = input;
-  if (input instanceof Uint8Array) raw = parseJson(decodeLexiconBytes(input, where), where);
-  else if (typeof input === 'string') raw = parseJson(input, where);
+  if (input instanceof Uint8Array) raw = parseJson(withoutBom(decodeLexiconBytes(input, where)), where);
+  else if (typeof input === 'string') raw = parseJson(withoutBom(input), where);
   const doc = migrate(raw, where);
   const parsed = lexiconFileSchema.safeParse(doc);
   if (!parsed.success) {

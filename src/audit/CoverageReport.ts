@@ -1,4 +1,5 @@
 import type { CapTie, WholeCaps } from '../lexicon/capTie.js';
+import type { IdentifyingTokens } from './identifyingTokens.js';
 import type { Shape } from '../lexicon/Shape.js';
 import type { LengthSummary } from '../tally/nearestRank.js';
 
@@ -87,6 +88,11 @@ export interface CoverageReport {
    * lexicon has no fit record.
    */
   capTie: CapTie | null;
+  /**
+   * The lexicon's tokens that look like e-mail addresses, URLs, @mentions, phone numbers or IP
+   * addresses (see `identifyingTokens`): anyone who loads the lexicon can read them.
+   */
+  identifyingTokens: IdentifyingTokens;
   /** Present when the lexicon carries a fit record (a lexicon file, not one frozen for this audit). */
   drift?: Drift;
 }

@@ -7,6 +7,7 @@ import { AuditCounts } from './AuditCounts.js';
 import type { CoverageReport, TokenCount } from './CoverageReport.js';
 import { coverageCurve } from './coverageCurve.js';
 import { drift } from './drift.js';
+import { identifyingTokensOf } from './identifyingTokens.js';
 import { suggest } from './suggest.js';
 
 /** Options of {@link auditCorpus}. */
@@ -74,6 +75,7 @@ export function auditReport(counts: AuditCounts, lexicon: Lexicon, options: Audi
     lengthHistogram: [...tally.lengths.entries()].sort((a, b) => a[0] - b[0]).map(([l, documents]) => ({ length: l, documents })),
     lexicon: { fingerprint: lexicon.fingerprint, tokens: lexicon.encoding.tokens.length, size: lexicon.size, reserved: lexicon.encoding.layout.reserved },
     capTie: lexicon.fit?.capTie ?? null,
+    identifyingTokens: identifyingTokensOf(lexicon),
   };
   if ((options.drift ?? true) && lexicon.fit !== null) {
     report.drift = drift(lexicon.fit, {

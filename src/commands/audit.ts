@@ -45,8 +45,10 @@ function shareFlag(args: ParsedArgs, name: string): number | null {
   const raw = valueOf(args, name);
   if (raw === undefined) return null;
   const percentForm = raw.endsWith('%');
-  const n = Number(percentForm ? raw.slice(0, -1) : raw);
-  const share = percentForm ? n / 100 : n;
+  const digits = percentForm ? raw.slice(0, -1).trim() : raw;
+  // A percentage is read as the decimal it spells, `5.6%` as 5.6e-2: 0.056, the share 7 of 125 is.
+  // (5.6 / 100 is 0.055999999999999994 in binary, which a rate of exactly 5.6 % would be above.)
+  const share = percentForm ? (/^[+-]?(\d+\.?\d*|\.\d+)$/.test(digits) ? Number(`${digits}e-2`) : Number.NaN) : Number(raw);
   if (raw.trim() === '' || !Number.isFinite(share) || share < 0 || share > 1) {
     throw new LexlockError('USAGE_BAD_VALUE', `--${name}: "${raw}" is not a share from 0 to 1 (such as 0.05) or a percentage (such as 5%)`, { field: `--${name}` });
   }

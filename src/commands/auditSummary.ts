@@ -2,7 +2,8 @@ import type { CoverageReport } from '../audit/CoverageReport.js';
 import { describeCapTie } from '../audit/describeCapTie.js';
 import type { WholeCaps } from '../lexicon/capTie.js';
 import type { Paint } from './colour.js';
-import { count, counted, percent } from './format.js';
+import { identifyingRows } from './describeLexicon.js';
+import { count, counted, percent, percentsApart } from './format.js';
 
 /** Thresholds the audit gates on (shares, 0…1), and which are crossed. */
 export interface Gates {
@@ -15,16 +16,28 @@ export function truncatedShare(report: CoverageReport): number {
   return report.documents === 0 ? 0 : report.truncatedDocuments / report.documents;
 }
 
-/** One line per crossed threshold, e.g. `OOV rate 6.12 % is above --max-oov 5.00 %`; empty when none is. */
+/**
+ * One line per crossed threshold, e.g. `OOV rate 6.12 % is above --max-oov 5.00 %`, with as many
+ * decimals as tell the two apart (`2.0501 % is above --max-oov 2.0500 %`); empty when none is. A share
+ * equal to its gate is not above it.
+ */
 export function crossedGates(report: CoverageReport, gates: Gates): string[] {
   const out: string[] = [];
   if (gates.maxOov !== null && report.oovRate > gates.maxOov) {
-    out.push(`OOV rate ${percent(report.oovRate)} is above --max-oov ${percent(gates.maxOov)}`);
+    const [rate, gate] = percentsApart(report.oovRate, gates.maxOov);
+    out.push(`OOV rate ${rate} is above --max-oov ${gate}`);
   }
-  if (gates.maxTruncated !== null && truncatedShare(report) > gates.maxTruncated) {
-    out.push(`${percent(truncatedShare(report))} of documents are truncated, above --max-truncated ${percent(gates.maxTruncated)}`);
+  const cut = truncatedShare(report);
+  if (gates.maxTruncated !== null && cut > gates.maxTruncated) {
+    const [share, gate] = percentsApart(cut, gates.maxTruncated);
+    out.push(`${share} of documents are truncated, above --max-truncated ${gate}`);
   }
   return out;
+}
+
+/** A share and its gate as shown side by side: apart when they differ; the gate '' when there is none. */
+function withGate(share: number, gate: number | null): [string, string] {
+  return gate === null ? [percent(share), ''] : percentsApart(share, gate);
 }
 
 function table(rows: string[][], paint: Paint): string {
@@ -43,20 +56,21 @@ const lengths = (l: CoverageReport['length']) => `min ${l.min}  p50 ${l.p50}  p9
 export function auditSummary(report: CoverageReport, heading: string, gates: Gates, paint: Paint): string {
   const oovBad = gates.maxOov !== null && report.oovRate > gates.maxOov;
   const cutBad = gates.maxTruncated !== null && truncatedShare(report) > gates.maxTruncated;
-  const mark = (bad: boolean, gate: number | null, flag: string) =>
-    gate === null ? '' : bad ? paint.red(`  above ${flag} ${percent(gate)}`) : paint.green(`  within ${flag} ${percent(gate)}`);
+  const mark = (bad: boolean, gate: string, flag: string) =>
+    gate === '' ? '' : bad ? paint.red(`  above ${flag} ${gate}`) : paint.green(`  within ${flag} ${gate}`);
   const s = report.suggest;
+  const [oov, oovGate] = withGate(report.oovRate, gates.maxOov);
   const rows: Array<[string, string]> = [
     ['documents', count(report.documents)],
     ['tokens', `${count(report.tokens)} (${count(report.types)} distinct)`],
-    ['OOV', `${oovBad ? paint.red(percent(report.oovRate)) : percent(report.oovRate)} of tokens (${count(report.oovTokens)})${mark(oovBad, gates.maxOov, '--max-oov')}`],
+    ['OOV', `${oovBad ? paint.red(oov) : oov} of tokens (${count(report.oovTokens)})${mark(oovBad, oovGate, '--max-oov')}`],
     ['tokens/document', lengths(report.length)],
   ];
   if (report.shape !== null) {
-    const share = percent(truncatedShare(report));
+    const [share, cutGate] = withGate(truncatedShare(report), gates.maxTruncated);
     rows.push([
       `at length ${report.shape.length}`,
-      `${counted(report.truncatedDocuments, 'document')} cut (${cutBad ? paint.red(share) : share}), ${counted(report.droppedTokens, 'token')} dropped, ${counted(report.paddingTokens, 'padding token')}${mark(cutBad, gates.maxTruncated, '--max-truncated')}`,
+      `${counted(report.truncatedDocuments, 'document')} cut (${cutBad ? paint.red(share) : share}), ${counted(report.droppedTokens, 'token')} dropped, ${counted(report.paddingTokens, 'padding token')}${mark(cutBad, cutGate, '--max-truncated')}`,
     ]);
   }
   const cover = (cap: number, whole: WholeCaps) => (whole.below === whole.above ? count(cap) : `${count(cap)} (whole counts: ${count(whole.below)} or ${count(whole.above)})`);
@@ -65,6 +79,7 @@ export function auditSummary(report: CoverageReport, heading: string, gates: Gat
     `90 % of tokens: ${cover(s.capFor90, s.wholeCapsFor90)}, 95 %: ${cover(s.capFor95, s.wholeCapsFor95)}, 99 %: ${cover(s.capFor99, s.wholeCapsFor99)} (lexicon has ${count(report.lexicon.tokens - report.lexicon.reserved)})`,
   ]);
   if (report.capTie !== null) rows.push(['lexicon cap', describeCapTie(report.capTie)]);
+  rows.push(...identifyingRows(report.identifyingTokens));
   rows.push(['lengths that fit', `90 % of documents: ${s.lengthFor90}, 95 %: ${s.lengthFor95}, 99 %: ${s.lengthFor99}`]);
   if (report.topOov.length > 0) {
     rows.push(['top OOV', report.topOov.slice(0, 10).map((t) => `${t.token} (${count(t.count)})`).join(', ')]);

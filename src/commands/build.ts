@@ -130,7 +130,8 @@ export async function build(argv: readonly string[], io: Io): Promise<number> {
       oov,
       reserved: args.values.get('reserve') ?? [],
       shape,
-      snippets: counted.snippets,
+      // No corpus text as canaries: a lexicon ships to every service and browser that loads it, and a
+      // short document may hold personal data (the fixed probe texts are the canaries).
       source: corpus,
       fields: counted.fields,
     });

@@ -1,5 +1,8 @@
 import type { Lexicon } from '../lexicon/Lexicon.js';
 import { describeCapTie } from '../audit/describeCapTie.js';
+import { NO_IDENTIFYING_TOKENS, describeIdentifying, identifyingAdvice } from '../audit/describeIdentifying.js';
+import { identifyingTokensOf, type IdentifyingTokens } from '../audit/identifyingTokens.js';
+import { PROBE_TEXTS } from '../artifact/canaries.js';
 import { describeShape } from '../lexicon/Shape.js';
 import { count, pairs, percent } from './format.js';
 
@@ -25,6 +28,11 @@ export function describeLexicon(lexicon: Lexicon): Array<[string, string]> {
     ['shape', encoding.shape === null ? 'none (variable length)' : describeShape(encoding.shape)],
     ['labels', encoding.labels === null ? 'none' : `${encoding.labels.length}: ${encoding.labels.slice(0, 12).join(', ')}${encoding.labels.length > 12 ? ', …' : ''}`],
   ];
+  rows.push(...identifyingRows(identifyingTokensOf(lexicon)));
+  const corpusTexts = lexicon.canaries.filter((c) => !PROBE_TEXTS.includes(c.text)).length;
+  if (corpusTexts > 0) {
+    rows.push(['corpus text', `${corpusTexts} ${corpusTexts === 1 ? 'canary is a document' : 'canaries are documents'} of the corpus, shipped with the lexicon; build it again with lexlock build to leave them out`]);
+  }
   if (fit !== null) {
     rows.push(['corpus', `${count(fit.documents)} documents, ${count(fit.tokens)} tokens, ${count(fit.types)} distinct`]);
     rows.push(['OOV on corpus', `${percent(fit.oovRate)} of tokens (${count(fit.oovTokens)})`]);
@@ -37,6 +45,15 @@ export function describeLexicon(lexicon: Lexicon): Array<[string, string]> {
     }
   }
   return rows;
+}
+
+/**
+ * The summary rows about tokens that may identify people: one saying there are none, or two saying
+ * how many of each kind (with shortened examples) and what to do about them.
+ */
+export function identifyingRows(found: IdentifyingTokens): Array<[string, string]> {
+  const described = describeIdentifying(found);
+  return described === null ? [['identifying', NO_IDENTIFYING_TOKENS]] : [['identifying', described], ['', identifyingAdvice(found)]];
 }
 
 /** {@link describeLexicon} as aligned text. */

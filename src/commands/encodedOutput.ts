@@ -12,7 +12,9 @@ import { JsonlWriter } from '../output/JsonlWriter.js';
 import { NpyWriter } from '../output/NpyWriter.js';
 import type { EncodeStats, RowSink } from '../pipeline/encodeCorpus.js';
 import { VERSION } from '../version.js';
+import { corpusName } from '../lexicon/corpusName.js';
 import { count, percent } from './format.js';
+import { pathFrom } from './pathFrom.js';
 
 /** Where encoded rows go (`lexlock encode -o`, `lexlock build --encode`): a sink that is finished or aborted. */
 export interface EncodedOutput extends RowSink {
@@ -62,7 +64,7 @@ export async function assertOutputWritable(output: string, force: boolean): Prom
 /** Opens `output`: one JSON line a document, or (shape required) ids/lengths/labels .npy files and a manifest. */
 export async function openEncodedOutput(output: string, shape: Shape | null, source: EncodedSource): Promise<EncodedOutput> {
   if (isJsonl(output)) return jsonlOutput(output);
-  return npyOutput(output, shape as Shape, (stats, labelled) => manifest(stats, labelled, shape, source));
+  return npyOutput(output, shape as Shape, (stats, labelled) => manifest(stats, labelled, shape, source, output));
 }
 
 /** The summary lines of an encode run, as `lexlock encode` prints them. */
@@ -143,14 +145,15 @@ async function npyOutput(folder: string, shape: Shape, manifest: (stats: EncodeS
  */
 export const MANIFEST_FORMAT_VERSION = 2;
 
-function manifest(stats: EncodeStats, labelled: boolean, shape: Shape | null, source: EncodedSource): object {
+/** The manifest of the folder `folder`; it names the corpus by its last segment and the lexicon relative to the folder. */
+function manifest(stats: EncodeStats, labelled: boolean, shape: Shape | null, source: EncodedSource, folder: string): object {
   const { lexicon, lexiconPath, corpus, readStats } = source;
   return {
     format: 'lexlock.encoded',
     formatVersion: MANIFEST_FORMAT_VERSION,
     lexlockVersion: VERSION,
-    lexicon: { fingerprint: lexicon.fingerprint, file: lexiconPath, size: lexicon.size, oovId: lexicon.oovId },
-    source: corpus,
+    lexicon: { fingerprint: lexicon.fingerprint, file: pathFrom(folder, lexiconPath), size: lexicon.size, oovId: lexicon.oovId },
+    source: corpusName(corpus),
     rows: stats.documents,
     shape,
     files: { ids: 'ids.npy', lengths: 'lengths.npy', labels: labelled ? 'labels.npy' : null },

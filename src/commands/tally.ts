@@ -77,7 +77,7 @@ export async function tally(argv: readonly string[], io: Io): Promise<number> {
   }
   const file: TallyFile = {
     tally: result.tally,
-    snippets: result.snippets,
+    snippets: [], // no corpus text: a lexicon built from tallies keeps none either (see build)
     fields: {
       ...corpusFields(reader.kind, options),
     },

@@ -1,3 +1,4 @@
+import { isLexlockError } from '../LexlockError.js';
 import { joinPath } from './listFolder.js';
 import { readError } from './readError.js';
 import { readFileWithin, readFileWithinSync } from './readFileWithin.js';
@@ -22,7 +23,8 @@ export interface FolderFile {
  * a cold disk) the rest are read {@link READ_AHEAD} at a time in the background, so waiting on one
  * file does not set the pace. The bytes are the same either way. (`slowReadMs` below 0 reads only
  * the first file synchronously.) A file of more than `maxBytes` is refused (`RECORD_TOO_LARGE`
- * naming it) without being read whole.
+ * naming it) without being read whole; a path that is no longer a regular file (a named pipe put in
+ * its place after the listing) is refused once open (`NOT_A_FILE`), never waited on.
  */
 export async function* folderFiles(
   root: string,
@@ -39,7 +41,7 @@ export async function* folderFiles(
     try {
       bytes = readFileWithinSync(file, maxBytes);
     } catch (e) {
-      throw readError(file, e);
+      throw isLexlockError(e) ? e : readError(file, e);
     }
     if (bytes === null) throw fileTooLarge(file, maxBytes);
     const slow = performance.now() - started > slowReadMs;
@@ -53,7 +55,7 @@ export async function* folderFiles(
     const file = joinPath(root, relative);
     const bytes = readFileWithin(file, maxBytes).then(
       (read) => read ?? Promise.reject(fileTooLarge(file, maxBytes)),
-      (e: unknown) => Promise.reject(readError(file, e)),
+      (e: unknown) => Promise.reject(isLexlockError(e) ? e : readError(file, e)),
     );
     bytes.catch(() => {}); // read ahead: the error is thrown when its turn comes
     return bytes;

@@ -5,9 +5,10 @@ import { quotedNames } from './quotedNames.js';
 import { readLineCorpus } from './readLineCorpus.js';
 
 /**
- * A `.jsonl`/`.ndjson` corpus: one JSON object a line, the text in field `context.text` (a string),
- * the label in `context.label` (a string; numbers and booleans are turned into strings). Lines of
- * white space only are skipped.
+ * A `.jsonl`/`.ndjson` corpus: one JSON object a line, the text in field `context.text` and the label
+ * in `context.label`, both JSON strings. Anything else is `BAD_FIELD_TYPE` naming the line, a number
+ * label included: turned into a string, `1` and `"1"` would be one label and `1e400` would be
+ * `"Infinity"`. A missing or null label is `MISSING_FIELD`. Lines of white space only are skipped.
  */
 export function readJsonl(context: ReadContext): AsyncGenerator<CorpusDocument[], void, undefined> {
   return readLineCorpus(context, {
@@ -63,12 +64,8 @@ function documentOf(json: string, where: Where, context: ReadContext): CorpusDoc
     );
   }
   if (typeof raw === 'string') return { text, label: raw, where };
-  if (typeof raw === 'number' || typeof raw === 'boolean') return { text, label: String(raw), where };
-  throw inputError(
-    'BAD_FIELD_TYPE',
-    { ...where, field: context.label },
-    `field ${JSON.stringify(context.label)} is ${jsonKind(raw)}, not a string, number or boolean; store the label as a JSON string`,
-  );
+  const fix = typeof raw === 'number' || typeof raw === 'boolean' ? 'put the value in quotes in the file, as the label should read' : 'store the label as a JSON string';
+  throw inputError('BAD_FIELD_TYPE', { ...where, field: context.label }, `field ${JSON.stringify(context.label)} is ${jsonKind(raw)}, not a string; labels are strings: ${fix}`);
 }
 
 function member(record: Record<string, unknown>, name: string, where: Where, role: 'text' | 'label'): unknown {

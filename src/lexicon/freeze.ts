@@ -6,6 +6,7 @@ import type { Tally } from '../tally/Tally.js';
 import { VERSION } from '../version.js';
 import { Lexicon } from './Lexicon.js';
 import { capTie } from './capTie.js';
+import { corpusName } from './corpusName.js';
 import { rankTokens } from './rankTokens.js';
 import { SeenTokens } from './SeenTokens.js';
 import { checkShape, type Shape } from './Shape.js';
@@ -24,9 +25,12 @@ export interface FreezeOptions {
   shape?: Shape | null;
   /** Store the tally's labels (default true; false builds a lexicon without labels). */
   labels?: boolean;
-  /** A few short corpus texts to keep as canaries beside the fixed probes. */
+  /**
+   * Texts to keep as canaries beside the fixed probes (default none). They ship inside the lexicon to
+   * whoever loads it, so pass no corpus document that may hold personal data; `lexlock build` passes none.
+   */
   snippets?: readonly string[];
-  /** Name of the corpus, for the fit record. */
+  /** The corpus, for the fit record: only its last segment is kept (`reviews.csv`, not its folders). */
   source?: string | null;
   /** The corpus fields the text and labels came from, recorded so `encode` can default to them. */
   fields?: { text: string | null; label: string | null };
@@ -117,7 +121,7 @@ export function freeze(tally: Tally, options: FreezeOptions = {}): Lexicon {
   const fit: Fit = {
     createdAt: (options.now ?? new Date()).toISOString(),
     lexlockVersion: VERSION,
-    source: options.source ?? null,
+    source: options.source == null ? null : corpusName(options.source),
     textField: options.fields?.text ?? null,
     labelField: options.fields?.label ?? null,
     cap,

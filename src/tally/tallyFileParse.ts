@@ -1,5 +1,6 @@
 import { inputError, isLexlockError, type Where } from '../LexlockError.js';
 import { describeIssue, memberPath } from '../artifact/describeIssue.js';
+import { withoutBom } from '../artifact/jsonFileLimit.js';
 import { TALLY_FORMAT, TALLY_FORMAT_VERSION, tallyFileSchema } from '../artifact/tallySchema.js';
 import { resolveRules } from '../rules/TextRules.js';
 import { VERSION } from '../version.js';
@@ -18,7 +19,7 @@ const AGAIN = 'count the part again with lexlock tally';
  * Reads a tally file from its JSON text or parsed object: format and version, schema, then the
  * invariants a tally keeps (tokens distinct and in string order, figures that add up). Anything
  * wrong is a LexlockError (`NOT_JSON`, `NOT_A_TALLY`, `NEWER_FORMAT`, `BAD_TALLY`) naming the member.
- * Browser-safe.
+ * A leading byte order mark is dropped. Browser-safe.
  * @example const { tally, snippets } = tallyFileParse(text, { source: 'part-1.tally' });
  */
 export function tallyFileParse(input: string | object, options: TallyFileParseOptions = {}): TallyFile {
@@ -27,7 +28,7 @@ export function tallyFileParse(input: string | object, options: TallyFileParseOp
   let raw: unknown = input;
   if (typeof input === 'string') {
     try {
-      raw = JSON.parse(input);
+      raw = JSON.parse(withoutBom(input));
     } catch (e) {
       throw inputError('NOT_JSON', where, `not JSON (${(e as Error).message}); pass a tally file written by lexlock tally or lexlock merge`);
     }

@@ -532,7 +532,7 @@ describe('parseLexicon refuses one case of each kind, with this message', () => 
     // Byte-level damage.
     ['a truncated text', () => BASE_TEXTS[0]!.slice(0, 200), 'NOT_JSON', `${SOURCE}: not JSON (${jsonParseMessage(BASE_TEXTS[0]!.slice(0, 200))}); pass a lexicon file written by lexlock build`],
     ['garbage after the document', () => `${BASE_TEXTS[0]!}}`, 'NOT_JSON', `${SOURCE}: not JSON (${jsonParseMessage(`${BASE_TEXTS[0]!}}`)}); pass a lexicon file written by lexlock build`],
-    ['a byte order mark', () => `\ufeff${BASE_TEXTS[0]!}`, 'NOT_JSON', `${SOURCE}: not JSON (${jsonParseMessage(`\ufeff${BASE_TEXTS[0]!}`)}); pass a lexicon file written by lexlock build`],
+    ['a byte order mark after white space', () => ` \ufeff${BASE_TEXTS[0]!}`, 'NOT_JSON', `${SOURCE}: not JSON (${jsonParseMessage(` \ufeff${BASE_TEXTS[0]!}`)}); pass a lexicon file written by lexlock build`],
     [
       'a flipped byte in a token',
       () => {

@@ -42,6 +42,17 @@ describe('parseLexicon', () => {
     expect(Array.from(back.encode('the ferry was very late'))).toEqual(Array.from(lex.encode('the ferry was very late')));
   });
 
+  // The Unicode Standard (§23.8) allows a byte order mark at the start of UTF-8 text; RFC 8259 §8.1
+  // lets a JSON parser ignore it. Only a leading one: anywhere else U+FEFF is not JSON white space.
+  it('reads a lexicon whose text or bytes start with a byte order mark', () => {
+    const bytes = new TextEncoder().encode(`\ufeff${text}`);
+    expect(Array.from(bytes.subarray(0, 3))).toEqual([0xef, 0xbb, 0xbf]);
+    for (const input of [`\ufeff${text}`, bytes]) {
+      expect(parseLexicon(input, { expectFingerprint: lex.fingerprint }).encoding).toEqual(lex.encoding);
+    }
+    expect(errorOf(`\ufeff\ufeff${text}`).code).toBe('NOT_JSON');
+  });
+
   it('writes one token a line and each small object of plain values on one line', () => {
     const lines = text.split('\n');
     expect(lines).toContain('    "shape": {"length":6,"pad":"start","cut":"end"}');

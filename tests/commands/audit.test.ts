@@ -43,9 +43,25 @@ describe('lexlock audit', () => {
     [['--max-oov', '50%'], 3, 'lexlock audit: OOV rate 61.54 % is above --max-oov 50.00 %\n'],
     [['--max-truncated', '0.25'], 0, ''],
     [['--max-truncated', '0.2'], 3, 'lexlock audit: 25.00 % of documents are truncated, above --max-truncated 20.00 %\n'],
+    // 8 of 13 tokens are OOV: 61.538461…%. The messages show the digits that tell rate and gate apart.
+    [['--max-oov', '0.61536'], 3, 'lexlock audit: OOV rate 61.538 % is above --max-oov 61.536 %\n'],
+    [['--max-oov', '61.538%'], 3, 'lexlock audit: OOV rate 61.5385 % is above --max-oov 61.5380 %\n'],
     [['--max-oov', '0.1', '--max-truncated', '0.1'], 3, 'lexlock audit: OOV rate 61.54 % is above --max-oov 10.00 %; 25.00 % of documents are truncated, above --max-truncated 10.00 %\n'],
   ])('gates on %j: exit %d', async (flags, code, stderr) => {
     const r = await cli('audit', tmp.path('live.csv'), '--lexicon', tmp.path('lex.json'), ...flags);
+    expect([r.code, r.stderr]).toEqual([code, stderr]);
+  });
+
+  // 7 OOV tokens of 125 is 5.6 % exactly (the share 0.056). A percentage is read as the decimal it
+  // spells: 5.6 / 100 in binary is 0.055999999999999994, which a rate of exactly 5.6 % would be above.
+  it.each([
+    [['--max-oov', '5.6%'], 0, ''],
+    [['--max-oov', '0.056'], 0, ''],
+    [['--max-oov', '5.59%'], 3, 'lexlock audit: OOV rate 5.60 % is above --max-oov 5.59 %\n'],
+    [['--max-oov', '5.5999%'], 3, 'lexlock audit: OOV rate 5.6000 % is above --max-oov 5.5999 %\n'],
+  ])('a rate of exactly the gate is not above it: %j, exit %d', async (flags, code, stderr) => {
+    await writeFile(tmp.path('exact.csv'), `text,topic\n${'late '.repeat(118)}${'zzz '.repeat(7)},delays\n`);
+    const r = await cli('audit', tmp.path('exact.csv'), '--lexicon', tmp.path('lex.json'), ...flags);
     expect([r.code, r.stderr]).toEqual([code, stderr]);
   });
 

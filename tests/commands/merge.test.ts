@@ -54,7 +54,10 @@ describe('lexlock merge', () => {
     const { createdAt: _a, source: sourceShards, ...fitShards } = shards.fit ?? { createdAt: '', source: null };
     const { createdAt: _b, source: sourceWhole, ...fitWhole } = whole.fit ?? { createdAt: '', source: null };
     expect(fitShards).toEqual(fitWhole);
-    expect([sourceShards, sourceWhole]).toEqual([tmp.path('all.tally'), FERRY]);
+    // Only the last segment of each path is recorded, never the folders of the machine.
+    expect([sourceShards, sourceWhole]).toEqual(['all.tally', 'ferry-messages.csv']);
+    // No corpus document is kept as a canary, whether built from the corpus or from its tallies.
+    expect(shards.canaries).toEqual(whole.canaries);
   });
 
   it('is commutative and associative down to the bytes', async () => {

@@ -1,6 +1,7 @@
 import { readFile, writeFile } from 'node:fs/promises';
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
 import { cli, tempFolder } from '../helpers/cli.js';
+import { MAIN_HELP } from '../../src/cli.js';
 
 let tmp: Awaited<ReturnType<typeof tempFolder>>;
 beforeEach(async () => {
@@ -17,10 +18,12 @@ describe('lexlock verify', () => {
     const r = await cli('verify', tmp.path('lex.json'));
     const fingerprint = JSON.parse(await readFile(tmp.path('lex.json'), 'utf8')).fingerprint as string;
     expect(r.code).toBe(0);
-    expect(r.stdout.split('\n')[0]).toBe(`ok ${tmp.path('lex.json')}: schema, fingerprint and 10 canaries check out`);
+    expect(r.stdout.split('\n')[0]).toBe(`ok ${tmp.path('lex.json')}: schema, fingerprint and 8 canaries check out`);
     expect(r.stdout).toContain(`fingerprint      ${fingerprint}`);
     const json = JSON.parse((await cli('verify', tmp.path('lex.json'), '--json')).stdout);
-    expect(json).toEqual({ ok: true, fingerprint, formatVersion: 2, tokens: 6, size: 8, labels: 0, canaries: 10 });
+    const none = { tokens: 0, examples: [] };
+    const identifyingTokens = { tokens: 0, email: none, url: none, mention: none, phone: none, ip: none };
+    expect(json).toEqual({ ok: true, fingerprint, formatVersion: 2, tokens: 6, size: 8, labels: 0, canaries: 8, identifyingTokens });
     // verify --help lists every member --json prints.
     const help = (await cli('verify', '--help')).stdout;
     for (const member of Object.keys(json)) expect(help).toContain(`"${member}"`);
@@ -62,5 +65,17 @@ describe('lexlock', () => {
     expect([r.code, r.stderr]).toEqual([2, 'lexlock: unknown command "train"; the commands are build, encode, verify, audit, compare, tally, merge (lexlock --help)\n']);
     expect((await cli('--help')).stdout).toContain('lexlock build <corpus> -o <lexicon.json>');
     expect((await cli('build', '--help')).stdout).toContain('--min-count N');
+  });
+
+  // Common practice (POSIX utility conventions): usage asked for goes to stdout with exit 0; usage
+  // printed because the call was wrong goes to stderr with the usage error status, so a pipe sees none.
+  it('without a command prints the usage on stderr and exits 2; --help prints it on stdout and exits 0', async () => {
+    const bare = await cli();
+    expect([bare.code, bare.stdout, bare.stderr]).toEqual([2, '', MAIN_HELP]);
+    expect(MAIN_HELP).toMatch(/^lexlock \d+\.\d+\.\d+: one fingerprinted lexicon file/);
+    for (const flag of ['--help', '-h', 'help']) {
+      const asked = await cli(flag);
+      expect([asked.code, asked.stdout, asked.stderr]).toEqual([0, MAIN_HELP, '']);
+    }
   });
 });

@@ -347,7 +347,7 @@ function expectJsonLines(bytes: Buffer, readings: Record<BadTextPolicy, Reading>
       expect(blank(line)).toBe(false);
       const value = JSON.parse(decodeOr(line, 'replace') as string) as Record<string, unknown>;
       expect(Object.hasOwn(value, fields.text ?? 'text') && value[fields.text ?? 'text']).toBe(d.text);
-      if (fields.label !== undefined) expect(String(value[fields.label])).toBe(d.label);
+      if (fields.label !== undefined) expect(value[fields.label]).toBe(d.label);
     }
     if (r.error !== null && r.error.where.line !== undefined) {
       const line = lines.get(r.error.where.line)!;

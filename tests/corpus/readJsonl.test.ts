@@ -7,11 +7,11 @@ import { collect, failure, fixtureFile, texts } from './corpusFixtures.js';
 describe('readCorpus on .jsonl and .ndjson', () => {
   it.each([
     ['text only', 'a.jsonl', '{"text":"hi"}\n{"text":"yo","x":1}\n', {}, [['hi', undefined], ['yo', undefined]]],
-    ['string, number and boolean labels', 'a.jsonl', '{"text":"a","y":"pos"}\n{"text":"b","y":5}\n{"text":"c","y":2.5}\n{"text":"d","y":false}\n', { label: 'y' }, [['a', 'pos'], ['b', '5'], ['c', '2.5'], ['d', 'false']]],
+    ['string labels, kept as written', 'a.jsonl', '{"text":"a","y":"pos"}\n{"text":"b","y":"5"}\n{"text":"c","y":"2.50"}\n{"text":"d","y":""}\n', { label: 'y' }, [['a', 'pos'], ['b', '5'], ['c', '2.50'], ['d', '']]],
     ['blank and white-space lines are skipped', 'a.ndjson', '\n{"text":"a"}\r\n  \t\r\n\n{"text":"b"}', {}, [['a', undefined], ['b', undefined]]],
     ['a BOM is dropped', 'a.jsonl', '\uFEFF{"text":"a"}\n', {}, [['a', undefined]]],
     ['escapes and unicode', 'a.jsonl', '{"text":"line\\nbreak \\u00e9 🎉 \\"q\\""}\n', {}, [['line\nbreak é 🎉 "q"', undefined]]],
-    ['other text field', 'a.jsonl', '{"body":"hi","stars":4}\n', { text: 'body', label: 'stars' }, [['hi', '4']]],
+    ['other text field', 'a.jsonl', '{"body":"hi","stars":"4"}\n', { text: 'body', label: 'stars' }, [['hi', '4']]],
   ])('%s', async (_, name, content, options: CorpusOptions, expected) => {
     const path = await fixtureFile(name, content);
     expect(texts(await collect(readCorpus(path, options)))).toEqual(expected);
@@ -50,6 +50,9 @@ describe('readCorpus on .jsonl and .ndjson', () => {
     throw new Error('valid JSON');
   };
 
+  const STRING_LABELS = 'labels are strings: store the label as a JSON string';
+  const QUOTE_IT = 'labels are strings: put the value in quotes in the file, as the label should read';
+
   it.each([
     ['not JSON', '{"text":"a"}\n{text: "b"}\n', {}, 'JSONL_NOT_JSON', `line 2: not JSON (${parserMessage('{text: "b"}')}); put one JSON object on each line`, 1],
     ['a truncated line', '{"text":"a"\n', {}, 'JSONL_NOT_JSON', `line 1: not JSON (${parserMessage('{"text":"a"')}); put one JSON object on each line`, 0],
@@ -60,12 +63,18 @@ describe('readCorpus on .jsonl and .ndjson', () => {
     ['a boolean', 'true\n', {}, 'JSONL_NOT_OBJECT', 'line 1: a JSON boolean where an object was expected; put one JSON object on each line, like {"text": "..."}', 0],
     ['no text field', '{"text":"a"}\n{"text":"b"}\n{"body":"c","stars":3}\n', {}, 'MISSING_FIELD', 'line 3: no field "text"; this line has "body", "stars"; pass --text to name the text field', 2],
     ['an object without members', '{}\n', {}, 'MISSING_FIELD', 'line 1: no field "text"; this line has no fields; pass --text to name the text field', 0],
-    ['no label field', '{"text":"a","y":1}\n{"text":"b"}\n', { label: 'y' }, 'MISSING_FIELD', 'line 2: no field "y"; this line has "text"; pass --label to name the label field', 1],
+    ['no label field', '{"text":"a","y":"1"}\n{"text":"b"}\n', { label: 'y' }, 'MISSING_FIELD', 'line 2: no field "y"; this line has "text"; pass --label to name the label field', 1],
     ['a null label', '{"text":"a","y":null}\n', { label: 'y' }, 'MISSING_FIELD', 'line 1: field "y" is null; give every line a label, or leave out --label', 0],
     ['a number as text', '{"text":5}\n', {}, 'BAD_FIELD_TYPE', 'line 1: field "text" is a JSON number, not a string; store the text as a JSON string', 0],
     ['null as text', '{"text":null}\n', {}, 'BAD_FIELD_TYPE', 'line 1: field "text" is JSON null, not a string; store the text as a JSON string', 0],
-    ['an object as label', '{"text":"a","y":{"v":1}}\n', { label: 'y' }, 'BAD_FIELD_TYPE', 'line 1: field "y" is a JSON object, not a string, number or boolean; store the label as a JSON string', 0],
-    ['an array as label', '{"text":"a","y":[1]}\n', { label: 'y' }, 'BAD_FIELD_TYPE', 'line 1: field "y" is a JSON array, not a string, number or boolean; store the label as a JSON string', 0],
+    ['an object as label', '{"text":"a","y":{"v":1}}\n', { label: 'y' }, 'BAD_FIELD_TYPE', `line 1: field "y" is a JSON object, not a string; ${STRING_LABELS}`, 0],
+    ['an array as label', '{"text":"a","y":[1]}\n', { label: 'y' }, 'BAD_FIELD_TYPE', `line 1: field "y" is a JSON array, not a string; ${STRING_LABELS}`, 0],
+    // A number label would make 1 and "1" one label, and 1e400 the label "Infinity": labels are strings.
+    ['a number as label', '{"text":"a","y":"1"}\n{"text":"b","y":1}\n', { label: 'y' }, 'BAD_FIELD_TYPE', `line 2: field "y" is a JSON number, not a string; ${QUOTE_IT}`, 1],
+    ['a number too large for a double as label', '{"text":"a","y":1e400}\n', { label: 'y' }, 'BAD_FIELD_TYPE', `line 1: field "y" is a JSON number, not a string; ${QUOTE_IT}`, 0],
+    ['a boolean as label', '{"text":"a","y":false}\n', { label: 'y' }, 'BAD_FIELD_TYPE', `line 1: field "y" is a JSON boolean, not a string; ${QUOTE_IT}`, 0],
+    ['an object as text', '{"text":{"body":"a"}}\n', {}, 'BAD_FIELD_TYPE', 'line 1: field "text" is a JSON object, not a string; store the text as a JSON string', 0],
+    ['a boolean as text', '{"text":true}\n', {}, 'BAD_FIELD_TYPE', 'line 1: field "text" is a JSON boolean, not a string; store the text as a JSON string', 0],
     ['an empty file', '', {}, 'EMPTY_CORPUS', ': no documents (the file is empty); put one JSON object on each line', 0],
     ['blank lines only', '\n  \n', {}, 'EMPTY_CORPUS', ': no documents (the file has no JSON lines); put one JSON object on each line', 0],
   ])('%s', async (_, content, options: CorpusOptions, code, detail, before) => {

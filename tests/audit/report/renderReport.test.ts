@@ -2,6 +2,7 @@ import { readdirSync, readFileSync, statSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import type { CoverageReport, LabelAudit } from '../../../src/audit/CoverageReport.js';
+import { identifyingTokens } from '../../../src/audit/identifyingTokens.js';
 import { renderReport } from '../../../src/audit/report/renderReport.js';
 import { coverageAt } from '../../../src/audit/report/sections/coverageAt.js';
 import { ferryContext, ferryReport, SCRIPT_TOKEN } from './reportFixture.js';
@@ -26,6 +27,14 @@ function trickyLabels(): Record<string, LabelAudit> {
 const page = renderReport(ferryReport(), ferryContext());
 
 describe('renderReport', () => {
+  it('says which tokens of the vocabulary may identify people and how to fold them into placeholders', () => {
+    expect(page).toContain(
+      `<p class="identifying"><strong>The lexicon's vocabulary may identify people.</strong> 41 tokens may identify people: ` +
+        '34 e-mail addresses (ta…@mail.example, o.…@port.example, …), 5 URLs (harbourline.example/help/re…, …), 2 phone-like numbers (555-01…, 020-794…); ' +
+        'anyone who loads the lexicon can read its tokens: --collapse email,url,number folds these into placeholders.</p>',
+    );
+  });
+
   it('names the corpus, the lexicon file, its fingerprint and every setting', () => {
     const context = ferryContext();
     expect(page).toContain('<title>Vocabulary audit: harbourline-support-2031-q2.jsonl</title>');
@@ -112,6 +121,7 @@ describe('renderReport', () => {
       lengthHistogram: [],
       lexicon: { fingerprint: 'sha256:00', tokens: 0, size: 2, reserved: 0 },
       capTie: null,
+      identifyingTokens: identifyingTokens([]),
     };
     const html = renderReport(empty, ferryContext());
     for (const bad of ['NaN', 'Infinity', 'undefined', 'null']) expect(html).not.toContain(bad);
@@ -119,6 +129,7 @@ describe('renderReport', () => {
     expect(html).toContain('No documents, so no lengths to show.');
     expect(html).toContain('This corpus has no labels, so there are no per-label figures.');
     expect(html).toContain('No token of this corpus is out of the vocabulary.');
+    expect(html).toContain("<p class=\"note\">In the lexicon's vocabulary, no token looks like an e-mail address, URL, @mention, phone number or IP address.</p>");
     expect(html).not.toContain('<svg');
     for (const bad of ['NaN', 'Infinity', 'undefined']) expect(page).not.toContain(bad);
   });

@@ -107,6 +107,15 @@ export function ferryReport(): CoverageReport {
     lengthHistogram: [...lengths].sort((a, b) => a[0] - b[0]).map(([length, n]) => ({ length, documents: n })),
     lexicon: { fingerprint: `sha256:${'3f9a0c1d'.repeat(8)}`, tokens: CAP + RESERVED, size: CAP + RESERVED + 2, reserved: RESERVED },
     capTie: { cap: CAP, count: 1, tokens: 9120, kept: 2210, left: 6910, below: CAP - 2210, above: CAP + 6910 },
+    // Invented, shortened as identifyingTokens shortens them.
+    identifyingTokens: {
+      tokens: 41,
+      email: { tokens: 34, examples: ['ta…@mail.example', 'o.…@port.example', 'de…@harbourline.example'] },
+      url: { tokens: 5, examples: ['harbourline.example/help/re…'] },
+      mention: { tokens: 0, examples: [] },
+      phone: { tokens: 2, examples: ['555-01…', '020-794…'] },
+      ip: { tokens: 0, examples: [] },
+    },
     drift: {
       oovRate: { fit: 0.0312, now: oovRate },
       length: { fit: { min: 2, p50: 81, p90: 190, p95: 240, p99: 410, max: 2100 }, now: summary },

@@ -1,6 +1,7 @@
 import type { WholeCaps } from '../../../lexicon/capTie.js';
 import type { CoverageReport } from '../../CoverageReport.js';
 import { describeCapTie } from '../../describeCapTie.js';
+import { NO_IDENTIFYING_TOKENS, describeIdentifying, identifyingAdvice } from '../../describeIdentifying.js';
 import { escapeHtml } from '../escapeHtml.js';
 import { formatCount } from '../formatCount.js';
 import { formatPercent } from '../formatPercent.js';
@@ -54,8 +55,13 @@ export function summarySection(report: CoverageReport): string {
     report.capTie === null
       ? ''
       : `<p class="cap-tie"><strong>The lexicon's cap cuts through a tie.</strong> ${escapeHtml(describeCapTie(report.capTie))} (in the corpus the lexicon was built from).</p>`;
+  const identifying = describeIdentifying(report.identifyingTokens);
+  const people =
+    identifying === null
+      ? `<p class="note">In the lexicon's vocabulary, ${escapeHtml(NO_IDENTIFYING_TOKENS)}.</p>`
+      : `<p class="identifying"><strong>The lexicon's vocabulary may identify people.</strong> ${escapeHtml(identifying)}; ${escapeHtml(identifyingAdvice(report.identifyingTokens))}.</p>`;
   const lengths =
     `<p class="percentiles">Tokens per document (nearest rank): min ${escapeHtml(formatCount(l.min))} · median ${escapeHtml(formatCount(l.p50))} · ` +
     `p90 ${escapeHtml(formatCount(l.p90))} · p95 ${escapeHtml(formatCount(l.p95))} · p99 ${escapeHtml(formatCount(l.p99))} · max ${escapeHtml(formatCount(l.max))}</p>`;
-  return `<section id="summary"><h2>Summary</h2><div class="cards">${cards.join('')}</div>${tie}${lengths}${suggestions}</section>`;
+  return `<section id="summary"><h2>Summary</h2><div class="cards">${cards.join('')}</div>${tie}${people}${lengths}${suggestions}</section>`;
 }
