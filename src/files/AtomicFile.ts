@@ -1,4 +1,5 @@
 import { open, rename, unlink, type FileHandle } from 'node:fs/promises';
+import { fileSystem } from './fileSystem.js';
 import { dirname } from 'node:path';
 import { LexlockError } from '../LexlockError.js';
 import { ioError } from './ioError.js';
@@ -51,7 +52,7 @@ export async function openAtomic(path: string): Promise<AtomicFile> {
   trackTemp(tempPath, path);
   let handle: FileHandle;
   try {
-    handle = await open(tempPath, 'wx');
+    handle = await fileSystem.open(tempPath, 'wx');
   } catch (e) {
     untrackTemp(tempPath);
     throw ioError(path, 'creating a temporary file beside it', e);
@@ -97,7 +98,7 @@ class OpenAtomicFile implements AtomicFile {
 
   commit(): Promise<void> {
     return this.run('flushing it to disk', async (handle) => {
-      await handle.sync();
+      await fileSystem.sync(handle);
       this.handle = null;
       await handle.close();
       try {
@@ -173,7 +174,7 @@ class StepError extends Error {
 async function writeAll(handle: FileHandle, bytes: Uint8Array, position: number): Promise<void> {
   let done = 0;
   while (done < bytes.byteLength) {
-    const { bytesWritten } = await handle.write(bytes, done, bytes.byteLength - done, position + done);
+    const bytesWritten = await fileSystem.write(handle, bytes, done, bytes.byteLength - done, position + done);
     done += bytesWritten;
   }
 }

@@ -1,6 +1,7 @@
-import { mkdir, open, rm, type FileHandle } from 'node:fs/promises';
+import { rm, type FileHandle } from 'node:fs/promises';
 import { dirname } from 'node:path';
 import { LexlockError } from '../LexlockError.js';
+import { fileSystem } from './fileSystem.js';
 import { ioError } from './ioError.js';
 import { trackTemp, untrackTemp } from './openTemps.js';
 import { removeStaleTemps } from './removeStaleTemps.js';
@@ -48,8 +49,8 @@ export class NumberSpill {
     if (destination !== null) await removeStaleTemps(destination);
     trackTemp(path, destination);
     try {
-      await mkdir(dirname(path), { recursive: true });
-      return new NumberSpill(path, await open(path, 'wx+'));
+      await fileSystem.mkdir(dirname(path));
+      return new NumberSpill(path, await fileSystem.open(path, 'wx+'));
     } catch (e) {
       untrackTemp(path);
       throw ioError(path, 'creating a temporary file of token numbers', e);
@@ -99,8 +100,8 @@ export class NumberSpill {
     if (this.used === 0) return;
     const bytes = new Uint8Array(this.block.buffer, 0, this.used * 4);
     try {
-      await this.handle.write(new Uint8Array(Int32Array.of(this.used).buffer), 0, 4, this.written);
-      await this.handle.write(bytes, 0, bytes.length, this.written + 4);
+      await fileSystem.write(this.handle, new Uint8Array(Int32Array.of(this.used).buffer), 0, 4, this.written);
+      await fileSystem.write(this.handle, bytes, 0, bytes.length, this.written + 4);
     } catch (e) {
       throw ioError(this.path, 'writing token numbers to a temporary file', e);
     }
@@ -110,7 +111,7 @@ export class NumberSpill {
 
   private async readInto(into: Int32Array, position: number): Promise<void> {
     const bytes = new Uint8Array(into.buffer, into.byteOffset, into.byteLength);
-    const { bytesRead } = await this.handle.read(bytes, 0, bytes.length, position);
+    const bytesRead = await fileSystem.read(this.handle, bytes, 0, bytes.length, position);
     if (bytesRead !== bytes.length) {
       throw new LexlockError('IO', `${this.path}: the temporary file of token numbers ended early (${bytesRead} of ${bytes.length} bytes at ${position}); is the disk full, or did something else write to it?`, { file: this.path });
     }
