@@ -41,6 +41,7 @@ export type LexlockErrorCode =
   | 'RECORD_TOO_LARGE'
   | 'OUTPUT_EXISTS'
   | 'OUTPUT_SYMLINK'
+  | 'OUTPUT_BUSY'
   | 'IO'
   | 'NPY_SHAPE'
   | 'WRITER_CLOSED'

@@ -67,7 +67,7 @@ describe('NumberSpill', () => {
       error = e;
     }
     expect(isLexlockError(error) && error.code).toBe('IO');
-    expect((error as Error).message).toBe(`${path}: the temporary file of token numbers ended early (6 of 28 bytes at 4); is the disk full, or did something else write to it?`);
+    expect((error as Error).message).toBe(`${path}: the temporary file of token numbers does not hold what was written to it: it ended early (6 of 28 bytes at 4); is the disk failing, or did something else write to it?`);
     await spill.remove();
   });
 
@@ -83,7 +83,7 @@ describe('NumberSpill', () => {
     }
     expect(isLexlockError(error) && error.code).toBe('IO');
     expect((error as Error).message).toBe(
-      `${path}: could not write the file (EEXIST: file already exists, while creating a temporary file of token numbers); check that its folder exists, that you may write there and that the disk has room`,
+      `${path}: not written: something is already there (EEXIST while creating a temporary file of token numbers); name another output, or move what is there away`,
     );
     await spill.remove();
     expect(await readdir(tmp.dir)).toEqual([]);
