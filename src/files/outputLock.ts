@@ -1,5 +1,5 @@
 import { readFileSync, unlinkSync } from 'node:fs';
-import { mkdir, rmdir } from 'node:fs/promises';
+import { mkdir, rmdir, stat } from 'node:fs/promises';
 import { dirname, relative, sep } from 'node:path';
 import { LexlockError } from '../LexlockError.js';
 import { fileSystem } from './fileSystem.js';
@@ -37,7 +37,7 @@ export async function lockOutput(destination: string): Promise<OutputLock> {
   try {
     created = await mkdir(folder, { recursive: true });
   } catch (e) {
-    throw ioError(destination, 'creating its folder', e);
+    throw await folderError(destination, folder, e);
   }
   const lock = lockPathFor(destination);
   try {
@@ -231,4 +231,18 @@ export async function withLocks<T>(destinations: readonly string[], work: () => 
   } finally {
     await locks.release(wrote);
   }
+}
+
+/** The error for a destination whose folder cannot be made: names the part of the path that is a file, if one is. */
+async function folderError(destination: string, folder: string, cause: unknown): Promise<LexlockError> {
+  const code = (cause as NodeJS.ErrnoException).code;
+  if (code === 'EEXIST' || code === 'ENOTDIR') {
+    for (let at = folder; at !== dirname(at); at = dirname(at)) {
+      const found = await stat(at).catch(() => null);
+      if (found !== null && !found.isDirectory()) {
+        return new LexlockError('IO', `${destination}: not written: ${at} is a file, not a folder; fix the path, or move that file away`, { file: destination });
+      }
+    }
+  }
+  return ioError(destination, 'creating its folder', cause);
 }
