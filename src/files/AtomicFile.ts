@@ -1,6 +1,6 @@
 import { unlinkSync } from 'node:fs';
 import { unlink, type FileHandle } from 'node:fs/promises';
-import { dirname } from 'node:path';
+import { basename, dirname } from 'node:path';
 import { LexlockError } from '../LexlockError.js';
 import { commitAll, type CommitStep } from './commitAll.js';
 import { fileSystem } from './fileSystem.js';
@@ -9,6 +9,7 @@ import { trackTemp, untrackTemp } from './openTemps.js';
 import { assertNotSymlink } from './refuseSymlink.js';
 import { removeStaleTemps } from './removeStaleTemps.js';
 import { asidePath, atomicTempPath } from './tempNames.js';
+import { stepSync } from './testSteps.js';
 import { writeFully } from './writeFully.js';
 
 /**
@@ -229,6 +230,7 @@ class RenameStep implements CommitStep {
       else if (NO_LINKS.has(code)) this.old = e as Error;
       else throw ioError(this.destination, 'keeping the old file aside', e);
     }
+    if (this.old === 'kept') stepSync(`old ${basename(this.destination)} kept aside`);
     try {
       fileSystem.renameSync(this.file.tempPath, this.destination);
     } catch (e) {

@@ -7,6 +7,7 @@ import { ioError } from './ioError.js';
 import { trackTemp, untrackTemp } from './openTemps.js';
 import { isRunning } from './removeStaleTemps.js';
 import { atomicTempPath, lockPathFor } from './tempNames.js';
+import { step } from './testSteps.js';
 import { writeFully } from './writeFully.js';
 
 /** A destination this process alone writes until {@link OutputLock.release}. */
@@ -225,8 +226,10 @@ export async function withLocks<T>(destinations: readonly string[], work: () => 
   const locks = await lockOutputs(destinations);
   let wrote = false;
   try {
+    if (destinations.length > 0) await step(`locked ${destinations.join(', ')}`);
     const result = await work();
     wrote = true;
+    if (destinations.length > 0) await step('done; unlocking');
     return result;
   } finally {
     await locks.release(wrote);

@@ -6,8 +6,7 @@ import { tempName } from './tempNames.js';
  * Removes what a lexlock process that no longer runs left beside `destination`: files and folders
  * named exactly as lexlock names its temporary things for that destination (see tempNames.ts) whose
  * process id is not a running process. A run killed in the middle of putting a new folder in place
- * (the old one set aside as `.old`, the new one still `.new`, the destination missing) is undone:
- * the old folder goes back. Nothing else is touched: not another destination's files, not a live
+ * (the old one set aside as `.old`, the destination missing) is undone: the old folder goes back. Nothing else is touched: not another destination's files, not a live
  * process's, not a link of such a name. Never throws; resolves to the paths removed or put back.
  * A process id from another machine or container sharing the folder cannot be told from a dead one.
  * @example await removeStaleTemps('models/lex.json') // ['models/.lex.json.4711.5c0ffee0a1b2.tmp']
@@ -21,7 +20,6 @@ export async function removeStaleTemps(destination: string): Promise<string[]> {
   } catch {
     return [];
   }
-  const present = new Set(names);
   const removed: string[] = [];
   for (const name of names) {
     const found = tempName(name, base);
@@ -32,8 +30,9 @@ export async function removeStaleTemps(destination: string): Promise<string[]> {
       if (stat.isSymbolicLink()) continue;
       const folderKind = found.kind === 'new' || found.kind === 'old';
       if (stat.isDirectory() !== folderKind && !(found.kind === 'old' && stat.isFile())) continue;
-      if (found.kind === 'old' && stat.isDirectory() && present.has(name.replace(/\.old$/, '.new')) && !(await exists(destination))) {
-        // Killed between setting the old folder aside and putting the new one in: the old one goes back.
+      if (found.kind === 'old' && stat.isDirectory() && !(await exists(destination))) {
+        // Killed between setting the old folder aside and putting the new one in (or unable to put it
+        // back): the old one goes back rather than being lost.
         await rename(path, destination);
       } else if (stat.isDirectory()) {
         await rm(path, { recursive: true, force: true });

@@ -2,8 +2,8 @@ import { writeSync } from 'node:fs';
 
 // Test hooks for the steps of writing and committing outputs, so a test can stop a run at each one
 // (tests/files/commitSteps.test.ts). Off unless the environment variable LEXLOCK_TEST_STEPS is set:
-//   LEXLOCK_TEST_STEPS=announce   prints `lexlock step <n>: <name>` on stderr at every step
-//   LEXLOCK_TEST_STEPS=pause:<n>  does the same and stops at step n after printing `lexlock paused at step <n>: <name>`
+//   LEXLOCK_TEST_STEPS=announce   prints `lexlock step <n> (async|sync): <name>` on stderr at every step
+//   LEXLOCK_TEST_STEPS=pause:<n>  does the same and stops at step n after printing `lexlock paused at step <n> (...): <name>`
 // A step inside a commit's synchronous part stops the whole thread (only SIGKILL ends it then, as a
 // signal handler cannot run inside that part either); any other step waits with the event loop
 // running, so SIGINT and SIGTERM are handled as usual.
@@ -19,18 +19,18 @@ function setting(): number | null {
 }
 
 /** Announces a step; true when the run must pause here. */
-function announce(name: string): boolean {
+function announce(name: string, kind: 'async' | 'sync'): boolean {
   const pauseAt = setting();
   if (pauseAt === null) return false;
   count += 1;
   const pause = count === pauseAt;
-  writeSync(2, `lexlock ${pause ? 'paused at ' : ''}step ${count}: ${name}\n`);
+  writeSync(2, `lexlock ${pause ? 'paused at ' : ''}step ${count} (${kind}): ${name}\n`);
   return pause;
 }
 
 /** A step outside a commit's synchronous part. */
 export async function step(name: string): Promise<void> {
-  if (!announce(name)) return;
+  if (!announce(name, 'async')) return;
   await new Promise<never>(() => {
     setInterval(() => undefined, 1 << 30);
   });
@@ -38,6 +38,6 @@ export async function step(name: string): Promise<void> {
 
 /** A step inside a commit's synchronous part: no signal handler can run until it ends. */
 export function stepSync(name: string): void {
-  if (!announce(name)) return;
+  if (!announce(name, 'sync')) return;
   Atomics.wait(new Int32Array(new SharedArrayBuffer(4)), 0, 0);
 }
