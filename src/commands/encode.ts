@@ -5,7 +5,7 @@ import { commitAll } from '../files/commitAll.js';
 import { loadLexicon } from '../files/loadLexicon.js';
 import { withLocks } from '../files/outputLock.js';
 import { encodeCorpus, type EncodeStats } from '../pipeline/encodeCorpus.js';
-import { assertOutputWritable, encodedSummary, isJsonl, openEncodedOutput } from './encodedOutput.js';
+import { assertOutputWritable, encodedSummary, isJsonl, openEncodedOutput, rowsError } from './encodedOutput.js';
 import { pairs } from './format.js';
 import type { Io } from './Io.js';
 import { parseArgs, positionals, valueOf } from './parseArgs.js';
@@ -76,6 +76,8 @@ export async function encode(argv: readonly string[], io: Io): Promise<number> {
       const sink = await openEncodedOutput(output, shape, source);
       try {
         stats = await encodeCorpus(reader, lexicon, shape, sink, { threads: threadsFlag(args, await corpusBytes(corpus)) });
+        // Every document read must have become one row before anything is committed.
+        if (stats.documents !== reader.stats.documents) throw rowsError(output, stats.documents, reader.stats.documents);
         await sink.finish(stats);
         await commitAll([await sink.commitStep()]);
       } catch (e) {

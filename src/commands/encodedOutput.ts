@@ -200,7 +200,7 @@ async function npyOutput(folder: string, shape: Shape, manifest: (stats: EncodeS
 }
 
 /** A file that does not hold one row a document: nothing is committed. */
-function rowsError(path: string, rows: number, documents: number): LexlockError {
+export function rowsError(path: string, rows: number, documents: number): LexlockError {
   return new LexlockError(
     'IO',
     `${path}: not written: it got ${count(rows)} rows for ${count(documents)} documents; this is a lexlock bug, please report it with the command you ran`,

@@ -94,12 +94,15 @@ export class NumberSpill {
     const header = new Int32Array(1);
     while (position < this.written) {
       await this.readInto(header, position);
-      const block = new Int32Array(header[0] as number);
+      const size = header[0] as number;
+      if (!(Number.isInteger(size) && size > 0 && position + 4 + size * 4 <= this.written)) this.damaged(`the block at byte ${position} claims ${size} numbers`);
+      const block = new Int32Array(size);
       await this.readInto(block, position + 4);
+      const start = position + 4;
       position += 4 + block.byteLength;
       for (let at = 0; at < block.length; ) {
-        const length = block[at + 2] as number;
-        if (!(length >= 0 && at + HEAD + length <= block.length)) this.damaged(`a document at byte ${position - block.byteLength + at * 4} claims ${length} numbers`);
+        const length = at + HEAD <= block.length ? (block[at + 2] as number) : -1;
+        if (!(length >= 0 && at + HEAD + length <= block.length)) this.damaged(`the document at byte ${start + at * 4} does not fit its block`);
         count += 1;
         yield { label: block[at] as number, group: block[at + 1] as number, numbers: block.subarray(at + HEAD, at + HEAD + length) };
         at += HEAD + length;

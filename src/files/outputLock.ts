@@ -107,7 +107,7 @@ async function acquire(destination: string, lock: string): Promise<void> {
       } catch (e) {
         const code = (e as NodeJS.ErrnoException).code ?? '';
         if (NO_LINKS.has(code)) {
-          if (await createInPlace(lock, pid)) return;
+          if (await createInPlace(lock, pid).catch((c: unknown) => Promise.reject(ioError(destination, 'creating its lock file', c)))) return;
         } else if (code !== 'EEXIST') {
           throw ioError(destination, 'creating its lock file', e);
         }
