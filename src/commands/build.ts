@@ -19,7 +19,7 @@ import type { TextRules } from '../rules/TextRules.js';
 import { resolve, sep } from 'node:path';
 import { describeLexiconText } from './describeLexicon.js';
 import type { Io } from './Io.js';
-import { assertOutputWritable, encodedSummary, isJsonl, openEncodedOutput, type EncodedOutput, type EncodedSource } from './encodedOutput.js';
+import { assertOutputName, assertOutputWritable, encodedSummary, isJsonl, openEncodedOutput, type EncodedOutput, type EncodedSource } from './encodedOutput.js';
 import { count, pairs } from './format.js';
 import { parseArgs, positionals, valueOf, wholeNumberFlag, type ParsedArgs } from './parseArgs.js';
 import { corpusBytes } from './corpusBytes.js';
@@ -222,7 +222,8 @@ async function writeBoth(output: string, lexicon: Lexicon, recorded: RecordedTal
 /** Adds to a failed build --encode's error that the other output was not written either. */
 function alsoNotWritten(e: unknown, output: string, encodeTo: string): unknown {
   if (!isLexlockError(e) || e.isUsage || e.code === 'OUTPUT_BUSY' || e.code === 'OUTPUT_EXISTS' || e.code === 'OUTPUT_SYMLINK') return e;
-  if (e.where.file === output || e.where.file?.startsWith(`${encodeTo}${sep}`) || e.where.file === encodeTo) {
+  const folder = encodeTo.replace(/[/\\]+$/, '');
+  if (e.where.file === output || e.where.file === encodeTo || e.where.file?.startsWith(`${folder}${sep}`)) {
     const other = e.where.file === output ? encodeTo : output;
     e.message += `; ${other} was not written either`;
   }
@@ -237,6 +238,7 @@ function refuseWithEncode(args: ParsedArgs, fromTally: boolean, encodeTo: string
   if (args.values.has('memory-limit')) {
     throw new LexlockError('USAGE_BAD_VALUE', '--encode cannot be combined with --memory-limit: a bounded build reads the corpus twice anyway; build with --memory-limit, then run lexlock encode', { field: '--encode' });
   }
+  assertOutputName(encodeTo, '--encode');
   if (!isJsonl(encodeTo) && !hasShape) {
     throw new LexlockError('USAGE_MISSING', `--encode ${encodeTo}: .npy output needs a fixed length; pass --length L (or encode to a .jsonl file for variable-length rows)`, { field: '--length' });
   }

@@ -5,7 +5,7 @@ import { commitAll } from '../files/commitAll.js';
 import { loadLexicon } from '../files/loadLexicon.js';
 import { withLocks } from '../files/outputLock.js';
 import { encodeCorpus, type EncodeStats } from '../pipeline/encodeCorpus.js';
-import { assertOutputWritable, encodedSummary, isJsonl, openEncodedOutput, rowsError } from './encodedOutput.js';
+import { assertOutputName, assertOutputWritable, encodedSummary, isJsonl, openEncodedOutput, rowsError } from './encodedOutput.js';
 import { pairs } from './format.js';
 import type { Io } from './Io.js';
 import { parseArgs, positionals, valueOf } from './parseArgs.js';
@@ -65,6 +65,7 @@ export async function encode(argv: readonly string[], io: Io): Promise<number> {
     );
   }
   const options = corpusOptions(args, lexiconFieldDefaults(corpus, lexicon));
+  assertOutputName(output, '--output');
   // The output's lock is held from here on: a second run writing the same output fails at once.
   return withLocks([output], async () => {
     await assertOutputWritable(output, force);

@@ -1,5 +1,5 @@
 import { lstat, readdir } from 'node:fs/promises';
-import { join } from 'node:path';
+import { basename, join, resolve } from 'node:path';
 import { LexlockError } from '../LexlockError.js';
 import type { CorpusStats } from '../corpus/CorpusStats.js';
 import { openInPlace } from '../files/AtomicFile.js';
@@ -48,6 +48,17 @@ const FOLDER_FILES = ['ids.npy', 'lengths.npy', 'labels.npy', 'manifest.json'];
 /** True when `output` names a JSON Lines file; anything else is a folder of .npy files. */
 export function isJsonl(output: string): boolean {
   return output.toLowerCase().endsWith('.jsonl');
+}
+
+/**
+ * Refuses (usage error) a folder output named `.`, `..` or a root: it is replaced whole by renames
+ * beside it, so it needs a name of its own in a parent folder. `flag` is the flag that named it.
+ */
+export function assertOutputName(output: string, flag: string): void {
+  const last = basename(output.replace(/[/\\]+$/, ''));
+  if (isJsonl(output) || (last !== '' && last !== '.' && last !== '..')) return;
+  const name = basename(resolve(output)) || 'encoded';
+  throw new LexlockError('USAGE_BAD_VALUE', `${flag}: name the output folder by its own name (such as ../${name}), not "${output}": the folder is replaced whole`, { field: flag });
 }
 
 /**

@@ -67,6 +67,15 @@ describe('without --force, an existing output is refused with exit 1 and left as
     expect([linked.code, linked.stderr]).toEqual([1, `lexlock encode: ${tmp.path('linked')} is a symbolic link to ${tmp.path('empty')}${SUFFIX} ${tmp.path('empty')} itself as the output\n`]);
   });
 
+  it.each([['.'], ['..'], ['./'], ['sub/..'], ['/']])('refuses a folder output named %s (usage, exit 2)', async (name) => {
+    await corpusAndLexicon();
+    const r = await cli('encode', tmp.path('m.csv'), '--lexicon', tmp.path('lex.json'), '-o', name);
+    expect(r.code).toBe(2);
+    expect([r.stderr.startsWith('lexlock encode: --output: name the output folder by its own name (such as ../'), r.stderr.endsWith(`), not "${name}": the folder is replaced whole\n`)]).toEqual([true, true]);
+    const b = await cli('build', tmp.path('m.csv'), '-o', tmp.path('b.json'), '--length', '4', '--encode', name);
+    expect([b.code, b.stderr.startsWith('lexlock build: --encode: name the output folder by its own name')]).toEqual([2, true]);
+  });
+
   it('encode into a folder that is not empty', async () => {
     await corpusAndLexicon();
     await mkdir(tmp.path('out'));
