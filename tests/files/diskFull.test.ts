@@ -146,7 +146,7 @@ describe('a disk that fills up halfway', () => {
     // Back to the old outputs.
     for (const [name, bytes] of saved) await writeFile(join(tmp.dir, name), bytes);
     expect(await snapshot(tmp.dir)).toEqual(before);
-    const budgets = [0, 1, ...Array.from({ length: 6 }, (_, k) => Math.floor((total * (k + 1)) / 7)), total - 1, total];
+    const budgets = [0, 1, Math.floor(total / 4), Math.floor(total / 2), Math.floor((total * 3) / 4), total - 1, total];
     for (const budget of budgets) {
       diskWithRoom(budget);
       const r = await cli(...args());
