@@ -76,6 +76,13 @@ describe('without --force, an existing output is refused with exit 1 and left as
     expect([b.code, b.stderr.startsWith('lexlock build: --encode: name the output folder by its own name')]).toEqual([2, true]);
   });
 
+  it('build --encode naming the lexicon itself as its encoded output: usage, exit 2', async () => {
+    await writeFile(tmp.path('m.csv'), CSV);
+    const r = await cli('build', tmp.path('m.csv'), '-o', tmp.path('same.jsonl'), '--encode', tmp.path('same.jsonl'));
+    expect([r.code, r.stderr]).toEqual([2, `lexlock build: --encode ${tmp.path('same.jsonl')}: that is where -o puts the lexicon; name another output\n`]);
+    expect(await readdir(tmp.dir)).toEqual(['m.csv']);
+  });
+
   it('encode into a folder that is not empty', async () => {
     await corpusAndLexicon();
     await mkdir(tmp.path('out'));
