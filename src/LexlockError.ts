@@ -43,6 +43,7 @@ export type LexlockErrorCode =
   | 'FILE_TOO_LARGE'
   | 'OUTPUT_EXISTS'
   | 'OUTPUT_SYMLINK'
+  | 'OUTPUT_BUSY'
   | 'IO'
   | 'NPY_SHAPE'
   | 'WRITER_CLOSED'

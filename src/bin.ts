@@ -36,9 +36,10 @@ if (heapLimit !== null && !process.execArgv.some((a) => a.startsWith('--max-old-
   const stop = (signal: StopSignal, code: number) => {
     if (stopping) return;
     stopping = true;
-    const { destinations, failed } = removeOpenTemps();
+    // Locks and staged folders are on the same list; outputs already put in place are named as written.
+    const { destinations, failed, written } = removeOpenTemps();
     const clear = process.stderr.isTTY ? '\r\x1b[K' : ''; // over a progress line, if one is drawn
-    process.stderr.write(clear + interruptedLine(signal, destinations, failed.map((f) => `${f.path} (${f.reason})`)));
+    process.stderr.write(clear + interruptedLine(signal, destinations, failed.map((f) => `${f.path} (${f.reason})`), written));
     process.exit(code);
   };
   process.on('SIGINT', () => stop('SIGINT', EXIT.interrupted));

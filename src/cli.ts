@@ -17,13 +17,20 @@ export type StopSignal = 'SIGINT' | 'SIGTERM';
 
 /**
  * The one line the executable prints on stderr when a signal stops a command: the outputs whose
- * temporary files it removed (none of them was written), or that no file was being written.
+ * temporary files it removed (none of them was written), or that no file was being written, and the
+ * outputs it had already put in place whole before the signal came (`written`).
  * @example interruptedLine('SIGINT', ['lex.json'], []) // 'lexlock: interrupted (SIGINT); nothing was written to lex.json\n'
  */
-export function interruptedLine(signal: StopSignal, untouched: readonly string[], notRemoved: readonly string[]): string {
-  const what = untouched.length === 0 ? 'no file was being written' : `nothing was written to ${untouched.join(', ')}`;
+export function interruptedLine(signal: StopSignal, untouched: readonly string[], notRemoved: readonly string[], written: readonly string[] = []): string {
+  const what =
+    untouched.length > 0
+      ? `nothing was written to ${untouched.join(', ')}`
+      : written.length > 0
+        ? ''
+        : 'no file was being written';
+  const done = written.length === 0 ? '' : `${written.join(', ')} ${written.length === 1 ? 'was' : 'were'} written in full before it`;
   const left = notRemoved.length === 0 ? '' : `; could not remove ${notRemoved.join(', ')}: delete ${notRemoved.length === 1 ? 'it' : 'them'} by hand`;
-  return `lexlock: interrupted (${signal}); ${what}${left}\n`;
+  return `lexlock: interrupted (${signal}); ${[what, done].filter((t) => t !== '').join('; ')}${left}\n`;
 }
 
 const COMMANDS: Record<string, { run: (argv: readonly string[], io: Io) => Promise<number>; help: string }> = {

@@ -1,7 +1,8 @@
-import { describeShape } from '../lexicon/Shape.js';
+import { describeShape, type Shape } from '../lexicon/Shape.js';
 import type { CoverageReport } from '../audit/CoverageReport.js';
 import { renderReport } from '../audit/report/renderReport.js';
 import { readCorpus } from '../corpus/readCorpus.js';
+import { withLocks } from '../files/outputLock.js';
 import { writeWhole } from '../files/writeWhole.js';
 import { loadLexicon } from '../files/loadLexicon.js';
 import { assertWritable } from '../files/refuseOverwrite.js';
@@ -93,6 +94,22 @@ export async function audit(argv: readonly string[], io: Io): Promise<number> {
   const gates: Gates = { maxOov: shareFlag(args, 'max-oov'), maxTruncated: shareFlag(args, 'max-truncated') };
   const flagShape = shapeFromFlags(args);
   const reportPath = valueOf(args, 'report');
+  // The report's lock is held from here on: a second run writing the same page fails at once.
+  return withLocks(reportPath === undefined ? [] : [reportPath], () => auditHolding({ args, io, corpus, lexiconPath, cap, gates, flagShape, reportPath }));
+}
+
+/** The rest of `lexlock audit`, once the flags are checked and the report's lock is held. */
+async function auditHolding(context: {
+  args: ParsedArgs;
+  io: Io;
+  corpus: string;
+  lexiconPath: string | undefined;
+  cap: number | undefined;
+  gates: Gates;
+  flagShape: Shape | null;
+  reportPath: string | undefined;
+}): Promise<number> {
+  const { args, io, corpus, lexiconPath, cap, gates, flagShape, reportPath } = context;
   if (reportPath !== undefined) await assertWritable(reportPath, args.switches.has('force'));
   const quiet = args.switches.has('quiet');
   const threads = threadsFlag(args, await corpusBytes(corpus));

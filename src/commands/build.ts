@@ -3,18 +3,24 @@ import type { Lexicon } from '../lexicon/Lexicon.js';
 import type { EncodeStats } from '../pipeline/encodeCorpus.js';
 import { tallyAndRecord, type RecordedTally } from '../pipeline/tallyAndRecord.js';
 import { readCorpus } from '../corpus/readCorpus.js';
-import { saveLexicon } from '../files/saveLexicon.js';
+import { serializeLexicon } from '../artifact/serializeLexicon.js';
+import { commitAll } from '../files/commitAll.js';
+import { withLocks } from '../files/outputLock.js';
+import { openAtomic, writeWhole, type AtomicFile } from '../files/writeWhole.js';
 import { assertWritable } from '../files/refuseOverwrite.js';
 import { boundedCorpusTally } from '../pipeline/boundedCorpusTally.js';
 import { tallyCorpus } from '../pipeline/tallyCorpus.js';
 import { loadTally } from '../files/loadTally.js';
 import { resolveRules } from '../rules/TextRules.js';
 import type { TallyFile } from '../tally/tallyFile.js';
-import { LexlockError } from '../LexlockError.js';
+import { LexlockError, isLexlockError } from '../LexlockError.js';
+import type { Shape } from '../lexicon/Shape.js';
+import type { TextRules } from '../rules/TextRules.js';
+import { resolve, sep } from 'node:path';
 import { describeLexiconText } from './describeLexicon.js';
 import type { Io } from './Io.js';
-import { assertOutputWritable, encodedSummary, isJsonl, openEncodedOutput } from './encodedOutput.js';
-import { pairs } from './format.js';
+import { assertOutputName, assertOutputWritable, encodedSummary, isJsonl, openEncodedOutput, type EncodedOutput, type EncodedSource } from './encodedOutput.js';
+import { count, pairs } from './format.js';
 import { parseArgs, positionals, valueOf, wholeNumberFlag, type ParsedArgs } from './parseArgs.js';
 import { corpusBytes } from './corpusBytes.js';
 import { createProgress } from './progress.js';
@@ -79,7 +85,7 @@ export async function build(argv: readonly string[], io: Io): Promise<number> {
   if (oovFlag !== undefined && oovFlag !== 'first' && oovFlag !== 'last') {
     throw new LexlockError('USAGE_BAD_VALUE', `--oov: "${oovFlag}" is not one of first, last`, { field: '--oov' });
   }
-  const oov = oovFlag ?? 'first';
+  const oov: 'first' | 'last' = oovFlag ?? 'first';
   const shape = shapeFromFlags(args);
   const force = args.switches.has('force');
   const fromTally = isTallyPath(corpus);
@@ -88,6 +94,34 @@ export async function build(argv: readonly string[], io: Io): Promise<number> {
   const options = corpusOptions(args);
   const encodeTo = valueOf(args, 'encode');
   if (encodeTo !== undefined) refuseWithEncode(args, fromTally, encodeTo, shape !== null);
+  if (encodeTo !== undefined && resolve(encodeTo) === resolve(output)) {
+    throw new LexlockError('USAGE_BAD_VALUE', `--encode ${encodeTo}: that is where -o puts the lexicon; name another output`, { field: '--encode' });
+  }
+  // The outputs' locks are held from here on: a second run writing either fails at once.
+  const outputs = encodeTo === undefined ? [output] : [output, encodeTo];
+  const context = { args, io, corpus, output, cap, minCount, oov, shape, force, fromTally, rules, options, encodeTo };
+  return withLocks(outputs, () => buildHolding(context)).catch((e: unknown) => {
+    throw encodeTo === undefined ? e : alsoNotWritten(e, output, encodeTo);
+  });
+}
+
+/** The rest of `lexlock build`, once the flags are checked and the outputs' locks are held. */
+async function buildHolding(context: {
+  args: ParsedArgs;
+  io: Io;
+  corpus: string;
+  output: string;
+  cap: number;
+  minCount: number;
+  oov: 'first' | 'last';
+  shape: Shape | null;
+  force: boolean;
+  fromTally: boolean;
+  rules: TextRules | null;
+  options: ReturnType<typeof corpusOptions>;
+  encodeTo: string | undefined;
+}): Promise<number> {
+  const { args, io, corpus, output, cap, minCount, oov, shape, force, fromTally, rules, options, encodeTo } = context;
   await assertWritable(output, force);
   if (encodeTo !== undefined) await assertOutputWritable(encodeTo, force);
 
@@ -135,31 +169,66 @@ export async function build(argv: readonly string[], io: Io): Promise<number> {
       source: corpus,
       fields: counted.fields,
     });
-    await saveLexicon(output, lexicon, { force });
   } catch (e) {
     await recorded?.discard();
     throw e;
   }
   let out = `wrote ${output}\n${describeLexiconText(lexicon)}`;
   out += badTextNotes(stats);
-  if (recorded !== null && encodeTo !== undefined) {
+  if (recorded === null || encodeTo === undefined) {
+    await writeWhole(output, serializeLexicon(lexicon));
+  } else {
     const source = { lexicon, lexiconPath: output, corpus, readStats: stats };
-    const sink = await openEncodedOutput(encodeTo, shape, source).catch(async (e: unknown) => {
-      await recorded?.discard();
-      throw e;
-    });
-    let encoded: EncodeStats;
-    try {
-      encoded = await recorded.encode(lexicon, shape, sink);
-      await sink.finish(encoded);
-    } catch (e) {
-      await sink.abort();
-      throw e;
-    }
+    const encoded = await writeBoth(output, lexicon, recorded, encodeTo, source);
     out += `wrote ${encodeTo}\n${pairs(encodedSummary(encoded, shape, source))}`;
   }
   io.stdout.write(out);
   return 0;
+}
+
+/**
+ * build --encode's two outputs, all or nothing: the lexicon is written and flushed under a temporary
+ * name, the corpus encoded from the spill, every document checked to have become one row, and only
+ * then are both put in place together (commitAll: the encoded output first, so a failure of the
+ * lexicon's rename can still put the old encoded output back).
+ */
+async function writeBoth(output: string, lexicon: Lexicon, recorded: RecordedTally, encodeTo: string, source: EncodedSource): Promise<EncodeStats> {
+  let lexiconFile: AtomicFile | null = null;
+  let sink: EncodedOutput | null = null;
+  try {
+    lexiconFile = await openAtomic(output);
+    await lexiconFile.write(new TextEncoder().encode(serializeLexicon(lexicon)));
+    await lexiconFile.seal();
+    sink = await openEncodedOutput(encodeTo, lexicon.shape, source);
+    const encoded = await recorded.encode(lexicon, lexicon.shape, sink);
+    const documents = lexicon.fit?.documents ?? recorded.tally.documents;
+    if (encoded.documents !== recorded.tally.documents || documents !== recorded.tally.documents) {
+      throw new LexlockError(
+        'IO',
+        `${encodeTo}: not written: ${count(encoded.documents)} rows came back from the temporary file of token numbers for ${count(recorded.tally.documents)} documents read; is the disk failing? (otherwise this is a lexlock bug: please report it)`,
+        { file: encodeTo },
+      );
+    }
+    await sink.finish(encoded);
+    await commitAll([await sink.commitStep(), lexiconFile.commitStep()]);
+    return encoded;
+  } catch (e) {
+    await sink?.abort();
+    await lexiconFile?.abort();
+    await recorded.discard();
+    throw e;
+  }
+}
+
+/** Adds to a failed build --encode's error that the other output was not written either. */
+function alsoNotWritten(e: unknown, output: string, encodeTo: string): unknown {
+  if (!isLexlockError(e) || e.isUsage || e.code === 'OUTPUT_BUSY' || e.code === 'OUTPUT_EXISTS' || e.code === 'OUTPUT_SYMLINK') return e;
+  const folder = encodeTo.replace(/[/\\]+$/, '');
+  if (e.where.file === output || e.where.file === encodeTo || e.where.file?.startsWith(`${folder}${sep}`)) {
+    const other = e.where.file === output ? encodeTo : output;
+    e.message += `; ${other} was not written either`;
+  }
+  return e;
 }
 
 /** Refuses what `--encode` cannot go with: a tally input, bounded memory, .npy without a length. */
@@ -170,6 +239,7 @@ function refuseWithEncode(args: ParsedArgs, fromTally: boolean, encodeTo: string
   if (args.values.has('memory-limit')) {
     throw new LexlockError('USAGE_BAD_VALUE', '--encode cannot be combined with --memory-limit: a bounded build reads the corpus twice anyway; build with --memory-limit, then run lexlock encode', { field: '--encode' });
   }
+  assertOutputName(encodeTo, '--encode');
   if (!isJsonl(encodeTo) && !hasShape) {
     throw new LexlockError('USAGE_MISSING', `--encode ${encodeTo}: .npy output needs a fixed length; pass --length L (or encode to a .jsonl file for variable-length rows)`, { field: '--length' });
   }

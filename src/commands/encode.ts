@@ -1,9 +1,11 @@
 import { describeShape } from '../lexicon/Shape.js';
 import { LexlockError } from '../LexlockError.js';
 import { readCorpus } from '../corpus/readCorpus.js';
+import { commitAll } from '../files/commitAll.js';
 import { loadLexicon } from '../files/loadLexicon.js';
+import { withLocks } from '../files/outputLock.js';
 import { encodeCorpus, type EncodeStats } from '../pipeline/encodeCorpus.js';
-import { assertOutputWritable, encodedSummary, isJsonl, openEncodedOutput } from './encodedOutput.js';
+import { assertOutputName, assertOutputWritable, encodedSummary, isJsonl, openEncodedOutput, rowsError } from './encodedOutput.js';
 import { pairs } from './format.js';
 import type { Io } from './Io.js';
 import { parseArgs, positionals, valueOf } from './parseArgs.js';
@@ -63,22 +65,30 @@ export async function encode(argv: readonly string[], io: Io): Promise<number> {
     );
   }
   const options = corpusOptions(args, lexiconFieldDefaults(corpus, lexicon));
-  await assertOutputWritable(output, force);
-
-  const progress = createProgress(io, 'encode', { quiet: args.switches.has('quiet'), totalBytes: await corpusBytes(corpus) });
-  const reader = readCorpus(corpus, { ...options, onProgress: (p) => progress.update(p) });
-  const source = { lexicon, lexiconPath, corpus, readStats: reader.stats };
-  const sink = await openEncodedOutput(output, shape, source);
-  let stats: EncodeStats;
-  try {
-    stats = await encodeCorpus(reader, lexicon, shape, sink, { threads: threadsFlag(args, await corpusBytes(corpus)) });
-    await sink.finish(stats);
-  } catch (e) {
-    await sink.abort();
-    throw e;
-  } finally {
-    progress.done();
-  }
-  io.stdout.write(`wrote ${output}\n${pairs(encodedSummary(stats, shape, source))}`);
-  return 0;
+  assertOutputName(output, '--output');
+  // The output's lock is held from here on: a second run writing the same output fails at once.
+  return withLocks([output], async () => {
+    await assertOutputWritable(output, force);
+    const progress = createProgress(io, 'encode', { quiet: args.switches.has('quiet'), totalBytes: await corpusBytes(corpus) });
+    const reader = readCorpus(corpus, { ...options, onProgress: (p) => progress.update(p) });
+    const source = { lexicon, lexiconPath, corpus, readStats: reader.stats };
+    let stats: EncodeStats;
+    try {
+      const sink = await openEncodedOutput(output, shape, source);
+      try {
+        stats = await encodeCorpus(reader, lexicon, shape, sink, { threads: threadsFlag(args, await corpusBytes(corpus)) });
+        // Every document read must have become one row before anything is committed.
+        if (stats.documents !== reader.stats.documents) throw rowsError(output, stats.documents, reader.stats.documents);
+        await sink.finish(stats);
+        await commitAll([await sink.commitStep()]);
+      } catch (e) {
+        await sink.abort();
+        throw e;
+      }
+    } finally {
+      progress.done();
+    }
+    io.stdout.write(`wrote ${output}\n${pairs(encodedSummary(stats, shape, source))}`);
+    return 0;
+  });
 }

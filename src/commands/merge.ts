@@ -1,5 +1,6 @@
 import { loadTally } from '../files/loadTally.js';
-import { saveTally } from '../files/saveTally.js';
+import { withLocks } from '../files/outputLock.js';
+import { writeTallyFile } from '../files/saveTally.js';
 import { assertWritable } from '../files/refuseOverwrite.js';
 import { tallyFileMerge, type NamedTallyFile } from '../tally/tallyFileMerge.js';
 import { LexlockError } from '../LexlockError.js';
@@ -32,14 +33,15 @@ export async function merge(argv: readonly string[], io: Io): Promise<number> {
   const twice = inputs.find((p, i) => inputs.indexOf(p) !== i);
   if (twice !== undefined) throw new LexlockError('USAGE_BAD_VALUE', `${twice} is named twice; name each part once, or its counts would be added twice`, { file: twice });
   const force = args.switches.has('force');
-  await assertWritable(output, force);
-
-  const first = inputs[0] as string;
-  let merged: NamedTallyFile = { name: first, file: await loadTally(first) };
-  for (const path of inputs.slice(1)) {
-    merged = { name: merged.name, file: tallyFileMerge([merged, { name: path, file: await loadTally(path) }]) };
-  }
-  await saveTally(output, merged.file, { force });
-  io.stdout.write(describeTallyFile(output, merged.file));
-  return 0;
+  return withLocks([output], async () => {
+    await assertWritable(output, force);
+    const first = inputs[0] as string;
+    let merged: NamedTallyFile = { name: first, file: await loadTally(first) };
+    for (const path of inputs.slice(1)) {
+      merged = { name: merged.name, file: tallyFileMerge([merged, { name: path, file: await loadTally(path) }]) };
+    }
+    await writeTallyFile(output, merged.file);
+    io.stdout.write(describeTallyFile(output, merged.file));
+    return 0;
+  });
 }

@@ -1,5 +1,6 @@
 import { readCorpus } from '../corpus/readCorpus.js';
-import { saveTally } from '../files/saveTally.js';
+import { withLocks } from '../files/outputLock.js';
+import { writeTallyFile } from '../files/saveTally.js';
 import { assertWritable } from '../files/refuseOverwrite.js';
 import { tallyCorpus } from '../pipeline/tallyCorpus.js';
 import type { TallyFile } from '../tally/tallyFile.js';
@@ -65,27 +66,28 @@ export async function tally(argv: readonly string[], io: Io): Promise<number> {
   const rules = rulesFromFlags(args);
   const force = args.switches.has('force');
   const options = corpusOptions(args);
-  await assertWritable(output, force);
-
-  const progress = createProgress(io, 'tally', { quiet: args.switches.has('quiet'), totalBytes: await corpusBytes(corpus) });
-  const reader = readCorpus(corpus, { ...options, onProgress: (p) => progress.update(p) });
-  let result;
-  try {
-    result = await tallyCorpus(reader, rules);
-  } finally {
-    progress.done();
-  }
-  const file: TallyFile = {
-    tally: result.tally,
-    snippets: [], // no corpus text: a lexicon built from tallies keeps none either (see build)
-    fields: {
-      ...corpusFields(reader.kind, options),
-    },
-  };
-  await saveTally(output, file, { force });
-  const { stats } = reader;
-  let out = describeTallyFile(output, file);
-  out += badTextNotes(stats);
-  io.stdout.write(out);
-  return 0;
+  return withLocks([output], async () => {
+    await assertWritable(output, force);
+    const progress = createProgress(io, 'tally', { quiet: args.switches.has('quiet'), totalBytes: await corpusBytes(corpus) });
+    const reader = readCorpus(corpus, { ...options, onProgress: (p) => progress.update(p) });
+    let result;
+    try {
+      result = await tallyCorpus(reader, rules);
+    } finally {
+      progress.done();
+    }
+    const file: TallyFile = {
+      tally: result.tally,
+      snippets: [], // no corpus text: a lexicon built from tallies keeps none either (see build)
+      fields: {
+        ...corpusFields(reader.kind, options),
+      },
+    };
+    await writeTallyFile(output, file);
+    const { stats } = reader;
+    let out = describeTallyFile(output, file);
+    out += badTextNotes(stats);
+    io.stdout.write(out);
+    return 0;
+  });
 }

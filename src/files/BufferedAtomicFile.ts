@@ -1,4 +1,5 @@
 import { openAtomic, type AtomicFile } from './AtomicFile.js';
+import type { CommitStep } from './commitAll.js';
 
 /** Default size of the write buffer: 1 MiB. */
 export const DEFAULT_BUFFER_BYTES = 1 << 20;
@@ -23,12 +24,15 @@ export class BufferedAtomicFile {
   private pending: Promise<void> = Promise.resolve();
   private static readonly encoder = new TextEncoder();
 
-  /** Opens the temporary file beside `path` at once; `bufferBytes` (default 1 MiB) is the write size. */
-  constructor(path: string, bufferBytes: number = DEFAULT_BUFFER_BYTES) {
+  /**
+   * Opens the temporary file beside `path` at once; `bufferBytes` (default 1 MiB) is the write size.
+   * `open` makes the file (default openAtomic; openInPlace for a file inside a StagedFolder).
+   */
+  constructor(path: string, bufferBytes: number = DEFAULT_BUFFER_BYTES, open: (path: string) => Promise<AtomicFile> = openAtomic) {
     this.path = path;
     this.capacity = Math.max(16, Math.floor(bufferBytes));
     this.chunk = new Uint8Array(this.capacity);
-    this.file = openAtomic(path);
+    this.file = open(path);
     // A failed open is reported by the next call that awaits the file; do not let it go unhandled.
     this.file.catch(() => undefined);
   }
@@ -79,6 +83,18 @@ export class BufferedAtomicFile {
     this.handOver();
     await this.pending;
     await (await this.file).writeAt(bytes, position);
+  }
+
+  /** Flushes the buffer to disk and closes the file, checking that it holds every byte: ready to commit. */
+  async seal(): Promise<void> {
+    this.handOver();
+    await this.pending;
+    await (await this.file).seal();
+  }
+
+  /** The step that puts the sealed file in place (see commitAll). */
+  async commitStep(): Promise<CommitStep> {
+    return (await this.file).commitStep();
   }
 
   /** Flushes the buffer, then fsyncs, renames over the destination and fsyncs the folder. */

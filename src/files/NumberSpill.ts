@@ -1,10 +1,12 @@
-import { mkdir, open, rm, type FileHandle } from 'node:fs/promises';
+import { rm, type FileHandle } from 'node:fs/promises';
 import { dirname } from 'node:path';
 import { LexlockError } from '../LexlockError.js';
+import { fileSystem } from './fileSystem.js';
 import { ioError } from './ioError.js';
 import { trackTemp, untrackTemp } from './openTemps.js';
 import { removeStaleTemps } from './removeStaleTemps.js';
 import { spillDestination } from './tempNames.js';
+import { readFully, writeFully } from './writeFully.js';
 
 /** Numbers a block holds before it is written (4 MiB). */
 const BLOCK_INTS = 1 << 20;
@@ -27,14 +29,25 @@ export interface SpilledDocument {
  */
 export class NumberSpill {
   readonly path: string;
+  /** The path errors name: the lexicon a spill of spillPathFor stands for, else the spill itself. */
+  private readonly report: string;
+  /** ' beside it' when errors name the lexicon. */
+  private readonly beside: string;
   private readonly handle: FileHandle;
   private block = new Int32Array(BLOCK_INTS);
   private used = 0;
   private written = 0;
+  /** Documents added, to check against the documents read back. */
+  private added = 0;
+  /** The write error that made this spill useless, thrown again by every later call. */
+  private failure: Error | null = null;
 
   private constructor(path: string, handle: FileHandle) {
     this.path = path;
     this.handle = handle;
+    const destination = spillDestination(path);
+    this.report = destination ?? path;
+    this.beside = destination === null ? '' : ' beside it';
   }
 
   /**
@@ -48,16 +61,18 @@ export class NumberSpill {
     if (destination !== null) await removeStaleTemps(destination);
     trackTemp(path, destination);
     try {
-      await mkdir(dirname(path), { recursive: true });
-      return new NumberSpill(path, await open(path, 'wx+'));
+      await fileSystem.mkdir(dirname(path));
+      return new NumberSpill(path, await fileSystem.open(path, 'wx+'));
     } catch (e) {
       untrackTemp(path);
-      throw ioError(path, 'creating a temporary file of token numbers', e);
+      throw ioError(destination ?? path, `creating a temporary file of token numbers${destination === null ? '' : ' beside it'}`, e);
     }
   }
 
   /** Appends one document: its label's index (-1 for none), its group, and the first `length` of `numbers`. */
   async add(label: number, group: number, numbers: Int32Array, length: number): Promise<void> {
+    if (this.failure !== null) throw this.failure;
+    this.added += 1;
     if (this.used + HEAD + length > this.block.length) {
       await this.writeBlock();
       if (HEAD + length > this.block.length) this.block = new Int32Array(HEAD + length);
@@ -72,26 +87,34 @@ export class NumberSpill {
 
   /** The documents in the order added (everything added is written first). */
   async *documents(): AsyncGenerator<SpilledDocument, void, undefined> {
+    if (this.failure !== null) throw this.failure;
     await this.writeBlock();
     let position = 0;
+    let count = 0;
     const header = new Int32Array(1);
     while (position < this.written) {
       await this.readInto(header, position);
-      const block = new Int32Array(header[0] as number);
+      const size = header[0] as number;
+      if (!(Number.isInteger(size) && size > 0 && position + 4 + size * 4 <= this.written)) this.damaged(`the block at byte ${position} claims ${size} numbers`);
+      const block = new Int32Array(size);
       await this.readInto(block, position + 4);
+      const start = position + 4;
       position += 4 + block.byteLength;
       for (let at = 0; at < block.length; ) {
-        const length = block[at + 2] as number;
+        const length = at + HEAD <= block.length ? (block[at + 2] as number) : -1;
+        if (!(length >= 0 && at + HEAD + length <= block.length)) this.damaged(`the document at byte ${start + at * 4} does not fit its block`);
+        count += 1;
         yield { label: block[at] as number, group: block[at + 1] as number, numbers: block.subarray(at + HEAD, at + HEAD + length) };
         at += HEAD + length;
       }
     }
+    if (position !== this.written || count !== this.added) this.damaged(`${count} documents in ${position} bytes came back, but ${this.added} in ${this.written} were written`);
   }
 
-  /** Closes and deletes the file. */
+  /** Closes and deletes the file. Never throws: a file that cannot be removed is left for the next run's clean-up. */
   async remove(): Promise<void> {
     await this.handle.close().catch(() => undefined);
-    await rm(this.path, { force: true });
+    await rm(this.path, { force: true }).catch(() => undefined);
     untrackTemp(this.path);
   }
 
@@ -99,10 +122,12 @@ export class NumberSpill {
     if (this.used === 0) return;
     const bytes = new Uint8Array(this.block.buffer, 0, this.used * 4);
     try {
-      await this.handle.write(new Uint8Array(Int32Array.of(this.used).buffer), 0, 4, this.written);
-      await this.handle.write(bytes, 0, bytes.length, this.written + 4);
+      // Every byte or an error: a short write left unfinished would read back as empty documents.
+      await writeFully(this.handle, new Uint8Array(Int32Array.of(this.used).buffer), this.written);
+      await writeFully(this.handle, bytes, this.written + 4);
     } catch (e) {
-      throw ioError(this.path, 'writing token numbers to a temporary file', e);
+      this.failure = ioError(this.report, `writing token numbers to a temporary file${this.beside}`, e);
+      throw this.failure;
     }
     this.written += 4 + bytes.length;
     this.used = 0;
@@ -110,9 +135,17 @@ export class NumberSpill {
 
   private async readInto(into: Int32Array, position: number): Promise<void> {
     const bytes = new Uint8Array(into.buffer, into.byteOffset, into.byteLength);
-    const { bytesRead } = await this.handle.read(bytes, 0, bytes.length, position);
-    if (bytesRead !== bytes.length) {
-      throw new LexlockError('IO', `${this.path}: the temporary file of token numbers ended early (${bytesRead} of ${bytes.length} bytes at ${position}); is the disk full, or did something else write to it?`, { file: this.path });
+    let bytesRead: number;
+    try {
+      bytesRead = await readFully(this.handle, bytes, position);
+    } catch (e) {
+      throw ioError(this.report, `reading back the temporary file of token numbers${this.beside}`, e);
     }
+    if (bytesRead !== bytes.length) this.damaged(`it ended early (${bytesRead} of ${bytes.length} bytes at ${position})`);
+  }
+
+  /** Throws `IO` for a spill that does not hold what was written to it. */
+  private damaged(what: string): never {
+    throw new LexlockError('IO', `${this.path}: the temporary file of token numbers does not hold what was written to it: ${what}; is the disk failing, or did something else write to it?`, { file: this.path });
   }
 }

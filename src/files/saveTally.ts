@@ -1,7 +1,6 @@
-import { mkdir } from 'node:fs/promises';
-import { dirname } from 'node:path';
 import type { TallyFile } from '../tally/tallyFile.js';
 import { tallyFileLines } from '../tally/tallyFileText.js';
+import { lockOutput } from './outputLock.js';
 import { openAtomic } from './writeWhole.js';
 import { assertWritable } from './refuseOverwrite.js';
 
@@ -16,12 +15,24 @@ const CHUNK = 1 << 16;
 
 /**
  * Writes a tally file atomically (temporary file in the same folder, fsync, rename), line by line
- * as it is produced, so a large vocabulary is never one string. Missing parent folders are created.
+ * as it is produced, so a large vocabulary is never one string. Missing parent folders are created
+ * (and removed again if the write fails); the file's lock is held meanwhile (see saveLexicon).
  * @example await saveTally('part-1.tally', { tally, snippets, fields: { text: 'text', label: null } });
  */
 export async function saveTally(path: string, file: TallyFile, options: SaveTallyOptions = {}): Promise<void> {
-  await assertWritable(path, options.force ?? false);
-  await mkdir(dirname(path), { recursive: true });
+  const lock = await lockOutput(path);
+  let wrote = false;
+  try {
+    await assertWritable(path, options.force ?? false);
+    await writeTallyFile(path, file);
+    wrote = true;
+  } finally {
+    await lock.release(wrote);
+  }
+}
+
+/** The atomic write of {@link saveTally} alone, for a caller that holds the lock and has checked the path. */
+export async function writeTallyFile(path: string, file: TallyFile): Promise<void> {
   const out = await openAtomic(path);
   const encoder = new TextEncoder();
   try {

@@ -11,6 +11,11 @@ export { openAtomic, type AtomicFile } from './AtomicFile.js';
 export async function writeWhole(path: string, data: string | Uint8Array): Promise<void> {
   const bytes = typeof data === 'string' ? new TextEncoder().encode(data) : data;
   const file = await openAtomic(path);
-  await file.write(bytes);
-  await file.commit();
+  try {
+    await file.write(bytes);
+    await file.commit();
+  } catch (e) {
+    await file.abort();
+    throw e;
+  }
 }

@@ -1,10 +1,14 @@
 import { LexlockError } from '../LexlockError.js';
+import type { AtomicFile } from '../files/AtomicFile.js';
 import { BufferedAtomicFile, DEFAULT_BUFFER_BYTES } from '../files/BufferedAtomicFile.js';
+import type { CommitStep } from '../files/commitAll.js';
 
 /** Options of {@link JsonlWriter}. */
 export interface JsonlWriterOptions {
   /** Size of the write buffer in bytes (default 1 MiB). */
   bufferBytes?: number;
+  /** Makes the file (default: openAtomic, a temporary file renamed over `path` by finish). */
+  open?: (path: string) => Promise<AtomicFile>;
 }
 
 /**
@@ -25,7 +29,7 @@ export class JsonlWriter {
   /** Opens the temporary file beside `path`. */
   constructor(path: string, options: JsonlWriterOptions = {}) {
     this.path = path;
-    this.out = new BufferedAtomicFile(path, options.bufferBytes ?? DEFAULT_BUFFER_BYTES);
+    this.out = new BufferedAtomicFile(path, options.bufferBytes ?? DEFAULT_BUFFER_BYTES, options.open);
   }
 
   /** Like the constructor, but resolves only once the temporary file exists (throws `IO` when it cannot be made). */
@@ -68,6 +72,26 @@ export class JsonlWriter {
       await this.out.abort();
       throw e;
     }
+  }
+
+  /**
+   * Flushes the file to disk without putting it in place, for a caller that commits it together with
+   * other outputs: then `commitStep()` and commitAll. On failure removes the temporary file.
+   */
+  async seal(): Promise<void> {
+    this.assertOpen();
+    this.closed = true;
+    try {
+      await this.out.seal();
+    } catch (e) {
+      await this.out.abort();
+      throw e;
+    }
+  }
+
+  /** The step that puts a sealed file in place (see commitAll). */
+  commitStep(): Promise<CommitStep> {
+    return this.out.commitStep();
   }
 
   /** Drops the temporary file; the destination is untouched. Never throws. */

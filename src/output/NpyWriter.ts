@@ -1,4 +1,5 @@
 import { LexlockError } from '../LexlockError.js';
+import type { AtomicFile } from '../files/AtomicFile.js';
 import { BufferedAtomicFile, DEFAULT_BUFFER_BYTES } from '../files/BufferedAtomicFile.js';
 import { int32LittleEndian } from './int32LittleEndian.js';
 import { npyHeader } from './npyHeader.js';
@@ -7,6 +8,8 @@ import { npyHeader } from './npyHeader.js';
 export interface NpyWriterOptions {
   /** Size of the write buffer in bytes (default 1 MiB). */
   bufferBytes?: number;
+  /** Makes the file (default: openAtomic, a temporary file renamed over `path` by finish). */
+  open?: (path: string) => Promise<AtomicFile>;
 }
 
 /**
@@ -41,7 +44,7 @@ export class NpyWriter {
     this.path = path;
     this.columns = columns;
     this.headerBytes = npyHeader(this.shapeWith(Number.MAX_SAFE_INTEGER)).byteLength;
-    this.out = new BufferedAtomicFile(path, options.bufferBytes ?? DEFAULT_BUFFER_BYTES);
+    this.out = new BufferedAtomicFile(path, options.bufferBytes ?? DEFAULT_BUFFER_BYTES, options.open);
     void this.out.append(npyHeader(this.shapeWith(0), this.headerBytes));
   }
 

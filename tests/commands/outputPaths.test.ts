@@ -46,6 +46,43 @@ describe('without --force, an existing output is refused with exit 1 and left as
     expect(await readFile(tmp.path('rows.jsonl'), 'utf8')).toBe('old\n');
   });
 
+  it('encode --force into a folder that holds other files: the folder is replaced whole, so refused', async () => {
+    await corpusAndLexicon();
+    await mkdir(tmp.path('out'));
+    await writeFile(tmp.path('out/ids.npy'), 'old');
+    for (const name of ['notes.txt', '.hidden', 'b', 'a']) await writeFile(tmp.path(`out/${name}`), 'keep');
+    const r = await cli('encode', tmp.path('m.csv'), '--lexicon', tmp.path('lex.json'), '-o', tmp.path('out'), '--force');
+    expect([r.code, r.stderr]).toEqual([1, `lexlock encode: ${tmp.path('out')} holds files an encode does not write (.hidden, a, b and 1 more); the folder is replaced whole, so move them elsewhere or name another folder\n`]);
+    expect((await readdir(tmp.path('out'))).sort()).toEqual(['.hidden', 'a', 'b', 'ids.npy', 'notes.txt']);
+  });
+
+  it('encode into an existing empty folder, and into a symbolic link to a folder (refused)', async () => {
+    await corpusAndLexicon();
+    await mkdir(tmp.path('empty'));
+    const r = await cli('encode', tmp.path('m.csv'), '--lexicon', tmp.path('lex.json'), '-o', tmp.path('empty'));
+    expect([r.code, r.stderr]).toEqual([0, '']);
+    expect((await readdir(tmp.path('empty'))).sort()).toEqual(['ids.npy', 'lengths.npy', 'manifest.json']);
+    await symlink(tmp.path('empty'), tmp.path('linked'));
+    const linked = await cli('encode', tmp.path('m.csv'), '--lexicon', tmp.path('lex.json'), '-o', tmp.path('linked'), '--force');
+    expect([linked.code, linked.stderr]).toEqual([1, `lexlock encode: ${tmp.path('linked')} is a symbolic link to ${tmp.path('empty')}${SUFFIX} ${tmp.path('empty')} itself as the output\n`]);
+  });
+
+  it.each([['.'], ['..'], ['./'], ['sub/..'], ['/']])('refuses a folder output named %s (usage, exit 2)', async (name) => {
+    await corpusAndLexicon();
+    const r = await cli('encode', tmp.path('m.csv'), '--lexicon', tmp.path('lex.json'), '-o', name);
+    expect(r.code).toBe(2);
+    expect([r.stderr.startsWith('lexlock encode: --output: name the output folder by its own name (such as ../'), r.stderr.endsWith(`), not "${name}": the folder is replaced whole\n`)]).toEqual([true, true]);
+    const b = await cli('build', tmp.path('m.csv'), '-o', tmp.path('b.json'), '--length', '4', '--encode', name);
+    expect([b.code, b.stderr.startsWith('lexlock build: --encode: name the output folder by its own name')]).toEqual([2, true]);
+  });
+
+  it('build --encode naming the lexicon itself as its encoded output: usage, exit 2', async () => {
+    await writeFile(tmp.path('m.csv'), CSV);
+    const r = await cli('build', tmp.path('m.csv'), '-o', tmp.path('same.jsonl'), '--encode', tmp.path('same.jsonl'));
+    expect([r.code, r.stderr]).toEqual([2, `lexlock build: --encode ${tmp.path('same.jsonl')}: that is where -o puts the lexicon; name another output\n`]);
+    expect(await readdir(tmp.dir)).toEqual(['m.csv']);
+  });
+
   it('encode into a folder that is not empty', async () => {
     await corpusAndLexicon();
     await mkdir(tmp.path('out'));
@@ -106,5 +143,13 @@ describe('interruptedLine', () => {
     ['SIGTERM', [], ['a.tmp (EBUSY: resource busy or locked)', 'b.tmp (EPERM: operation not permitted)'], 'lexlock: interrupted (SIGTERM); no file was being written; could not remove a.tmp (EBUSY: resource busy or locked), b.tmp (EPERM: operation not permitted): delete them by hand\n'],
   ] as const)('%s, untouched %j, not removed %j', (signal, untouched, notRemoved, line) => {
     expect(interruptedLine(signal, untouched, notRemoved)).toBe(line);
+  });
+
+  it.each([
+    [[], ['enc/out', 'lex.json'], 'lexlock: interrupted (SIGINT); enc/out, lex.json were written in full before it\n'],
+    [[], ['report.html'], 'lexlock: interrupted (SIGINT); report.html was written in full before it\n'],
+    [['lex.json'], ['rows.jsonl'], 'lexlock: interrupted (SIGINT); nothing was written to lex.json; rows.jsonl was written in full before it\n'],
+  ] as const)('names what was already written: untouched %j, written %j', (untouched, written, line) => {
+    expect(interruptedLine('SIGINT', untouched, [], written)).toBe(line);
   });
 });

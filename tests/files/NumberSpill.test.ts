@@ -67,7 +67,7 @@ describe('NumberSpill', () => {
       error = e;
     }
     expect(isLexlockError(error) && error.code).toBe('IO');
-    expect((error as Error).message).toBe(`${path}: the temporary file of token numbers ended early (6 of 28 bytes at 4); is the disk full, or did something else write to it?`);
+    expect((error as Error).message).toBe(`${path}: the temporary file of token numbers does not hold what was written to it: it ended early (6 of 28 bytes at 4); is the disk failing, or did something else write to it?`);
     await spill.remove();
   });
 
@@ -83,9 +83,42 @@ describe('NumberSpill', () => {
     }
     expect(isLexlockError(error) && error.code).toBe('IO');
     expect((error as Error).message).toBe(
-      `${path}: could not write the file (EEXIST: file already exists, while creating a temporary file of token numbers); check that its folder exists, that you may write there and that the disk has room`,
+      `${path}: not written: something is already there (EEXIST while creating a temporary file of token numbers); name another output, or move what is there away`,
     );
     await spill.remove();
     expect(await readdir(tmp.dir)).toEqual([]);
+  });
+  it('says so when a block holds fewer documents than were added', async () => {
+    const path = tmp.path('short');
+    const spill = await NumberSpill.create(path);
+    await spill.add(1, 0, Int32Array.of(5, 6), 2);
+    await spill.add(2, 0, Int32Array.of(7), 1);
+    const reading = spill.documents();
+    await reading.next(); // writes the block
+    await reading.return(undefined);
+    const { open } = await import('node:fs/promises');
+    const readAll = async (): Promise<string> => {
+      try {
+        for await (const _ of spill.documents()) void _;
+      } catch (e) {
+        return (e as Error).message;
+      }
+      return 'no error';
+    };
+    const prefix = `${path}: the temporary file of token numbers does not hold what was written to it: `;
+    const suffix = '; is the disk failing, or did something else write to it?';
+    // Behind its back, the block's length (the first 4 bytes) is changed: each way is refused.
+    for (const [length, what] of [
+      [5, 'the document at byte 28 does not fit its block'], // the second document's label (2) then reads as a block's length
+      [4, 'the document at byte 4 does not fit its block'],
+      [-3, 'the block at byte 0 claims -3 numbers'],
+      [1 << 30, `the block at byte 0 claims ${1 << 30} numbers`],
+    ] as const) {
+      const handle = await open(path, 'r+');
+      await handle.write(new Uint8Array(Int32Array.of(length).buffer), 0, 4, 0);
+      await handle.close();
+      expect(await readAll()).toBe(`${prefix}${what}${suffix}`);
+    }
+    await spill.remove();
   });
 });

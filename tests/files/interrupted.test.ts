@@ -1,6 +1,6 @@
 import { spawn, type ChildProcess } from 'node:child_process';
 import { watch } from 'node:fs';
-import { mkdir, readdir, readFile, readlink, writeFile } from 'node:fs/promises';
+import { mkdir, readdir, readFile, readlink, rm, writeFile } from 'node:fs/promises';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { parse as parseNpy } from 'npyjs';
@@ -161,19 +161,22 @@ describe('a build killed at any moment (SIGKILL)', () => {
       expect(await readdir(tmp.path('models'))).toContain(`.lex.json.${child.pid}.numbers.tmp`);
     }
 
-    await lexlock('build', tmp.path('big.txt'), '-o', dest, '--force', '--quiet');
+    // The next runs remove what the killed ones left for their outputs: temporary files, spills and
+    // the locks of dead processes (the build --encode above held one for rows.jsonl too).
+    await lexlock('build', tmp.path('big.txt'), '-o', dest, '--force', '--quiet', '--encode', tmp.path('models/rows.jsonl'));
     expect(await check()).toBe('new');
-    expect(await readdir(tmp.path('models'))).toEqual(['lex.json']);
+    expect(await readdir(tmp.path('models'))).toEqual(['lex.json', 'rows.jsonl']);
   });
 });
 
 describe('an encode to .npy files killed at any moment (SIGKILL)', () => {
-  it('leaves each file old and whole or new and whole, readable, and the next run leaves no temporary file', { timeout: 120_000 }, async () => {
+  it('leaves the old set of files or the whole new set, readable, and the next run leaves nothing behind', { timeout: 120_000 }, async () => {
     await writeCorpus(tmp.path('big.txt'), DOCUMENTS, 3);
     await writeCorpus(tmp.path('small.txt'), 300, 4);
     await lexlock('build', tmp.path('small.txt'), '-o', tmp.path('old.json'), '--length', '16', '--quiet');
     await lexlock('build', tmp.path('big.txt'), '-o', tmp.path('new.json'), '--length', '32', '--quiet');
-    const dest = tmp.path('out');
+    await mkdir(tmp.path('encoded'));
+    const dest = tmp.path('encoded/out');
     await lexlock('encode', tmp.path('small.txt'), '--lexicon', tmp.path('old.json'), '-o', dest, '--quiet');
     const encode = (to: string) => start(['encode', tmp.path('big.txt'), '--lexicon', tmp.path('new.json'), '-o', to, '--force', '--quiet']);
     const began = Date.now();
@@ -191,59 +194,61 @@ describe('an encode to .npy files killed at any moment (SIGKILL)', () => {
     expect(readNpy(after.get('ids.npy') as Buffer).shape).toEqual([DOCUMENTS, 32]);
 
     /**
-     * Every .npy file is the old one or the new one, byte for byte, and consistent in itself; the
-     * manifest is missing only while a run is committing, and where it is present every file is of
-     * the run it describes.
+     * The folder holds exactly the old set of files or exactly the new set, each file byte for byte,
+     * the .npy files readable; or, killed in the instant between setting the old folder aside and
+     * renaming the new one in, no folder, with both beside it (the next run puts the old one back).
      */
     const check = async (): Promise<string> => {
-      const outcome: string[] = [];
-      for (const name of names) {
-        const bytes = await readFile(join(dest, name)).catch(() => null);
-        if (bytes === null && name === 'manifest.json') {
-          outcome.push('absent');
-          continue;
-        }
-        const which = bytes === null ? 'missing' : bytes.equals(before.get(name) as Buffer) ? 'old' : bytes.equals(after.get(name) as Buffer) ? 'new' : 'neither';
-        expect(`${name}: ${which}`).not.toMatch(/: (neither|missing)$/);
-        if (name.endsWith('.npy')) readNpy(bytes as Buffer);
-        outcome.push(which);
+      const present = await readdir(dest).catch(() => null);
+      if (present === null) {
+        const beside = (await readdir(tmp.path('encoded'))).filter((n) => n.startsWith('.out.'));
+        expect(beside.map((n) => n.replace(/\.\d+\.[0-9a-f]{12}\./, '.<pid>.<random>.')).sort()).toEqual(['.out.<pid>.<random>.new', '.out.<pid>.<random>.old']);
+        return 'swapping';
       }
-      const joined = outcome.join(' ');
-      if (!joined.endsWith('absent')) expect(['old old old', 'new new new']).toContain(joined);
-      return joined;
+      expect(present.sort()).toEqual(names);
+      const outcome = new Set<string>();
+      for (const name of names) {
+        const bytes = await readFile(join(dest, name));
+        outcome.add(bytes.equals(before.get(name) as Buffer) ? 'old' : bytes.equals(after.get(name) as Buffer) ? 'new' : `${name} is neither`);
+        if (name.endsWith('.npy')) readNpy(bytes);
+      }
+      expect(outcome.size, [...outcome].join(', ')).toBe(1);
+      return [...outcome][0] as string;
     };
 
+    const outcomes: string[] = [];
     for (let k = 0; k <= 10; k++) {
       const { child, ended } = encode(dest);
       await sleep((runMs * k) / 10);
       child.kill('SIGKILL');
       await ended;
-      await check();
+      outcomes.push(await check());
     }
-    // Killed as soon as each temporary file appears: ids.npy (rows being written) and manifest.json
-    // (last); each time from the old files again (a run above may have finished).
-    for (const name of ['ids.npy', 'ids.npy', 'manifest.json']) {
+    expect(outcomes[0]).toBe('old'); // killed as it started
+    // Killed as soon as its hidden folder appears: the old set is untouched (each time from the old
+    // set again: a run above may have finished).
+    for (let k = 0; k < 2; k++) {
+      await rm(dest, { recursive: true, force: true });
+      await mkdir(dest);
       for (const [file, bytes] of before) await writeFile(join(dest, file), bytes);
       const { child, ended } = encode(dest);
-      const seen = await appears(dest, (n) => n.startsWith(`.${name}.${child.pid}.`) && isTemp(n), ended);
+      const seen = await appears(tmp.path('encoded'), (n) => n.startsWith(`.out.${child.pid}.`) && n.endsWith('.new'), ended);
       child.kill('SIGKILL');
       await ended;
-      const outcome = await check();
-      // ids.npy's temporary file is made as the run starts and the rows are committed only at its end.
-      if (name === 'ids.npy') expect([seen, outcome]).toEqual([true, 'old old old']);
+      expect([seen, await check()]).toEqual([true, 'old']);
     }
 
-    // The killed runs left their temporary files (a SIGKILL lets nothing run); the next run removes them.
-    expect((await readdir(dest)).filter(isTemp)).not.toEqual([]);
+    // The killed runs left their hidden folders and locks (a SIGKILL lets nothing run); the next run removes them.
+    expect((await readdir(tmp.path('encoded'))).filter((n) => n !== 'out')).not.toEqual([]);
     const last = await encode(dest).ended;
     expect([last.code, last.stderr]).toEqual([0, '']);
-    expect(await check()).toBe('new new new');
-    expect((await readdir(dest)).sort()).toEqual(names);
+    expect(await check()).toBe('new');
+    expect(await readdir(tmp.path('encoded'))).toEqual(['out']);
   });
 });
 
 describe('Ctrl-C (SIGINT) and SIGTERM', () => {
-  it('encode: exit 130, one line naming the outputs, temporary files removed, old files untouched', { timeout: 60_000 }, async () => {
+  it('encode: exit 130, one line naming the output, its hidden folder and lock removed, old files untouched', { timeout: 60_000 }, async () => {
     await writeCorpus(tmp.path('big.txt'), DOCUMENTS, 5);
     await lexlock('build', tmp.path('big.txt'), '-o', tmp.path('lex.json'), '--length', '24', '--quiet');
     const dest = tmp.path('out');
@@ -251,12 +256,13 @@ describe('Ctrl-C (SIGINT) and SIGTERM', () => {
     await writeFile(join(dest, 'ids.npy'), 'old ids');
     await writeFile(join(dest, 'lengths.npy'), 'old lengths');
     const { child, ended } = start(['encode', tmp.path('big.txt'), '--lexicon', tmp.path('lex.json'), '-o', dest, '--force', '--quiet']);
-    // Both writers are open once lengths.npy's temporary file exists (ids.npy's is made first).
-    expect(await appears(dest, (n) => n.startsWith(`.lengths.npy.${child.pid}.`), ended)).toBe(true);
+    // The rows are written into a hidden folder beside the output.
+    expect(await appears(tmp.dir, (n) => n.startsWith(`.out.${child.pid}.`) && n.endsWith('.new'), ended)).toBe(true);
     child.kill('SIGINT');
     const done = await ended;
     expect([done.code, done.signal]).toEqual([130, null]);
-    expect(done.stderr).toBe(`lexlock: interrupted (SIGINT); nothing was written to ${join(dest, 'ids.npy')}, ${join(dest, 'lengths.npy')}\n`);
+    expect(done.stderr).toBe(`lexlock: interrupted (SIGINT); nothing was written to ${dest}\n`);
+    expect((await readdir(tmp.dir)).sort()).toEqual(['big.txt', 'lex.json', 'out']);
     expect((await readdir(dest)).sort()).toEqual(['ids.npy', 'lengths.npy']);
     expect(await readFile(join(dest, 'ids.npy'), 'utf8')).toBe('old ids');
     expect(await readFile(join(dest, 'lengths.npy'), 'utf8')).toBe('old lengths');

@@ -25,7 +25,7 @@ describe('ioError', () => {
     expect(error.code).toBe('IO');
     expect(error.where).toEqual({ file: 'out/ids.npy' });
     expect(error.message).toBe(
-      'out/ids.npy: could not write the file (ENOSPC: no space left on device, while writing); check that its folder exists, that you may write there and that the disk has room',
+      'out/ids.npy: not written: the disk is full (ENOSPC while writing); free some space there, or name an output on another disk',
     );
     expect(error.cause).toBe(cause);
   });

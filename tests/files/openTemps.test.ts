@@ -24,22 +24,23 @@ describe('removeOpenTemps', () => {
     await ids.appendRows(Int32Array.of(1, 2, 3, 4));
     const rows = await JsonlWriter.open(join(dir, 'rows.jsonl'));
     expect((await readdir(dir)).length).toBe(4);
-    expect(removeOpenTemps()).toEqual({ destinations: [join(dir, 'lex.json'), join(dir, 'ids.npy'), join(dir, 'rows.jsonl')], failed: [] });
+    expect(removeOpenTemps()).toEqual({ destinations: [join(dir, 'lex.json'), join(dir, 'ids.npy'), join(dir, 'rows.jsonl')], failed: [], written: [] });
     expect(await readdir(dir)).toEqual(['lex.json']);
     expect(await readFile(join(dir, 'lex.json'), 'utf8')).toBe('old');
-    expect(removeOpenTemps()).toEqual({ destinations: [], failed: [] });
+    expect(removeOpenTemps()).toEqual({ destinations: [], failed: [], written: [] });
     await Promise.all([lexicon.abort(), ids.abort(), rows.abort()]); // harmless afterwards
     expect(await readdir(dir)).toEqual(['lex.json']);
   });
 
-  it('forgets a file once it is committed or aborted', async () => {
+  it('forgets a file once it is committed or aborted, and names the committed one as written', async () => {
     const dir = await folder();
     const kept = await openAtomic(join(dir, 'kept.txt'));
     const dropped = await openAtomic(join(dir, 'dropped.txt'));
     await kept.write(new TextEncoder().encode('whole'));
     await kept.commit();
     await dropped.abort();
-    expect(removeOpenTemps()).toEqual({ destinations: [], failed: [] });
+    // The committed one is named as written: a signal now must not say it was left as it was.
+    expect(removeOpenTemps()).toEqual({ destinations: [], failed: [], written: [join(dir, 'kept.txt')] });
     expect(await readFile(join(dir, 'kept.txt'), 'utf8')).toBe('whole');
   });
 
@@ -47,11 +48,11 @@ describe('removeOpenTemps', () => {
     const dir = await folder();
     const spill = await NumberSpill.create(spillPathFor(join(dir, 'lex.json')));
     await spill.add(0, 0, Int32Array.of(5, 6), 2);
-    expect(removeOpenTemps()).toEqual({ destinations: [join(dir, 'lex.json')], failed: [] });
+    expect(removeOpenTemps()).toEqual({ destinations: [join(dir, 'lex.json')], failed: [], written: [] });
     expect(await readdir(dir)).toEqual([]);
     const again = await NumberSpill.create(spillPathFor(join(dir, 'lex.json')));
     await again.remove();
-    expect(removeOpenTemps()).toEqual({ destinations: [], failed: [] });
+    expect(removeOpenTemps()).toEqual({ destinations: [], failed: [], written: [] });
   });
 
   it('lists a file it could not remove, with the reason, and still names the destination', async () => {
@@ -63,6 +64,7 @@ describe('removeOpenTemps', () => {
     expect(removeOpenTemps()).toEqual({
       destinations: [join(dir, 'lex.json')],
       failed: [{ path: file.tempPath, reason: 'EISDIR: illegal operation on a directory' }],
+      written: [],
     });
     await file.abort();
   });

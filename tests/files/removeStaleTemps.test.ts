@@ -83,4 +83,28 @@ describe('removeStaleTemps', () => {
     await spill.remove();
     expect(await readdir(dir)).toEqual([]);
   });
+
+  it("removes a dead run's hidden folders and kept-aside files, and puts back an old folder it had set aside", async () => {
+    const dir = await folder();
+    const staged = `.out.${NEVER}.0123456789ab.new`;
+    const aside = `.out.${NEVER}.0123456789ab.old`;
+    await mkdir(join(dir, staged));
+    await writeFile(join(dir, staged, 'ids.npy'), 'new rows');
+    await mkdir(join(dir, aside));
+    await writeFile(join(dir, aside, 'ids.npy'), 'old rows');
+    await mkdir(join(dir, `.out.${process.ppid}.abcdefabcdef.new`)); // a running process's: kept
+    await writeFile(join(dir, `.lex.json.${NEVER}.abcdefabcdef.old`), 'old lexicon kept aside');
+    // Killed between the two renames: no `out`; the old folder goes back.
+    const removed = await removeStaleTemps(join(dir, 'out'));
+    expect(removed.sort()).toEqual([join(dir, aside), join(dir, staged)].sort());
+    expect((await readdir(dir)).sort()).toEqual([`.lex.json.${NEVER}.abcdefabcdef.old`, `.out.${process.ppid}.abcdefabcdef.new`, 'out']);
+    expect(await readFile(join(dir, 'out', 'ids.npy'), 'utf8')).toBe('old rows');
+    // With `out` in place (the swap was done), a set-aside folder is only removed.
+    await mkdir(join(dir, aside));
+    expect(await removeStaleTemps(join(dir, 'out'))).toEqual([join(dir, aside)]);
+    expect(await readFile(join(dir, 'out', 'ids.npy'), 'utf8')).toBe('old rows');
+    // A file kept aside during a commit is removed, never put back.
+    expect(await removeStaleTemps(join(dir, 'lex.json'))).toEqual([join(dir, `.lex.json.${NEVER}.abcdefabcdef.old`)]);
+    expect((await readdir(dir)).sort()).toEqual([`.out.${process.ppid}.abcdefabcdef.new`, 'out']);
+  });
 });

@@ -1,7 +1,7 @@
 import { basename, join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { tempPathFor } from '../../src/files/AtomicFile.js';
-import { atomicTempPath, spillDestination, spillPathFor, tempOwner } from '../../src/files/tempNames.js';
+import { asidePath, atomicTempPath, lockPathFor, spillDestination, spillPathFor, swapPaths, tempName, tempOwner } from '../../src/files/tempNames.js';
 
 // The names are lexlock's own (the hidden-file dot is the POSIX convention for "not listed by ls",
 // common practice); the check here is that the clean-up recognises exactly the names the writers make.
@@ -19,6 +19,10 @@ describe('tempNames', () => {
   it.each([
     ['an atomic write', '.lex.json.4711.0123456789ab.tmp', 'lex.json', 4711],
     ['a spill', '.lex.json.4711.numbers.tmp', 'lex.json', 4711],
+    ['a hidden folder being written', '.out.4711.0123456789ab.new', 'out', 4711],
+    ['an old output set aside', '.out.4711.0123456789ab.old', 'out', 4711],
+    ['the lock (no process id in the name)', '.out.lock', 'out', null],
+    ['another ending', '.out.4711.0123456789ab.bak', 'out', null],
     ['a base with dots and digits', '.v1.2.json.88.abcdefabcdef.tmp', 'v1.2.json', 88],
     ['another destination', '.other.json.4711.0123456789ab.tmp', 'lex.json', null],
     ['a longer destination sharing the start', '.lex.json.bak.4711.0123456789ab.tmp', 'lex.json', null],
@@ -43,5 +47,14 @@ describe('tempNames', () => {
     [join('models', '.lex.json.4711.0123456789ab.tmp'), null],
   ])('spillDestination(%s) is %s', (path, destination) => {
     expect(spillDestination(path)).toBe(destination);
+  });
+  it('makes twin names for a folder swap, a kept-aside name and the lock name, and tells their kinds', () => {
+    const { staging, aside } = swapPaths(join('enc', 'out'));
+    expect(staging).toMatch(new RegExp(`^enc[/\\\\]\\.out\\.${process.pid}\\.([0-9a-f]{12})\\.new$`));
+    expect(aside).toBe(staging.replace(/new$/, 'old'));
+    expect(tempName(basename(staging), 'out')).toEqual({ pid: process.pid, kind: 'new', tag: staging.slice(-16, -4) });
+    expect(tempName(basename(asidePath('rows.jsonl')), 'rows.jsonl')?.kind).toBe('old');
+    expect(tempName('.lex.json.4711.numbers.tmp', 'lex.json')).toEqual({ pid: 4711, kind: 'numbers', tag: null });
+    expect(lockPathFor(join('models', 'lex.json'))).toBe(join('models', '.lex.json.lock'));
   });
 });

@@ -26,7 +26,6 @@ async function folder(): Promise<string> {
 }
 
 
-const SUFFIX = '; check that its folder exists, that you may write there and that the disk has room';
 
 beforeAll(async () => {
   root = await mkdtemp(join(tmpdir(), 'lexlock-atomic-'));
@@ -65,7 +64,7 @@ describe('writeWhole', () => {
     expect(error.code).toBe('IO');
     // "no such file or directory" is the C library's strerror(ENOENT) text, which libuv reports (common practice).
     expect(error.message).toBe(
-      `${path}: could not write the file (ENOENT: no such file or directory, while creating a temporary file beside it)${SUFFIX}`,
+      `${path}: not written: a folder on the way does not exist (ENOENT while creating a temporary file beside it); check the path`,
     );
     expect(error.where).toEqual({ file: path });
     expect(await readdir(dir)).toEqual([]);
@@ -77,7 +76,7 @@ describe('writeWhole', () => {
     await mkdir(join(path, 'inside'), { recursive: true });
     const error = await caughtError(() => writeWhole(path, 'x'));
     // rename(2): EISDIR "newpath is an existing directory, but oldpath is not a directory" (Linux man-pages).
-    expect(error.message).toBe(`${path}: could not write the file (EISDIR: illegal operation on a directory, while renaming the temporary file over it)${SUFFIX}`);
+    expect(error.message).toBe(`${path}: not written: it is a folder (EISDIR while renaming the temporary file over it); name a file, or move the folder away`);
     expect(await readdir(dir)).toEqual(['out']);
     expect(await readdir(path)).toEqual(['inside']);
   });
@@ -103,7 +102,7 @@ describe('writeWhole', () => {
         expect(child.stderr).toBe('');
         message = child.stdout;
       }
-      expect(message).toBe(`${path}: could not write the file (EACCES: permission denied, while creating a temporary file beside it)${SUFFIX}`);
+      expect(message).toBe(`${path}: not written: permission denied (EACCES while creating a temporary file beside it); name a folder you may write to, or change its permissions`);
       expect(await readdir(dir)).toEqual(['lex.json']);
       expect(await readFile(path, 'utf8')).toBe('old');
     } finally {
@@ -187,7 +186,7 @@ describe('openAtomic', () => {
     await file.write(new Uint8Array([1]));
     const error = await caughtError(() => file.writeAt(new Uint8Array([2]), -1));
     expect(error.code).toBe('IO');
-    expect(error.message).toBe(`${path}: could not write the file (position -1 is not a byte offset from 0 up, while writing)${SUFFIX}`);
+    expect(error.message).toBe(`${path}: not written: position -1 is not a byte offset from 0 up (while writing); check that the disk has room and works`);
     expect(await readdir(dir)).toEqual(['lex.json']);
     expect(await readFile(path, 'utf8')).toBe('old');
     expect(await caughtError(() => file.commit())).toBe(error);

@@ -122,7 +122,7 @@ describe('JsonlWriter', () => {
     const path = join(dir, 'nope', 'out.jsonl');
     await expect(JsonlWriter.open(path)).rejects.toMatchObject({
       code: 'IO',
-      message: `${path}: could not write the file (ENOENT: no such file or directory, while creating a temporary file beside it); check that its folder exists, that you may write there and that the disk has room`,
+      message: `${path}: not written: a folder on the way does not exist (ENOENT while creating a temporary file beside it); check the path`,
     });
   });
 });

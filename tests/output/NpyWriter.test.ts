@@ -186,7 +186,7 @@ describe('NpyWriter', () => {
     const path = join(dir, 'nope', 'ids.npy');
     await expect(NpyWriter.open(path, 3)).rejects.toMatchObject({
       code: 'IO',
-      message: `${path}: could not write the file (ENOENT: no such file or directory, while creating a temporary file beside it); check that its folder exists, that you may write there and that the disk has room`,
+      message: `${path}: not written: a folder on the way does not exist (ENOENT while creating a temporary file beside it); check the path`,
     });
     expect(await readdir(dir)).toEqual([]);
   });
