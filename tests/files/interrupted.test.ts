@@ -180,7 +180,9 @@ describe('an encode to .npy files killed at any moment (SIGKILL)', () => {
     await lexlock('encode', tmp.path('small.txt'), '--lexicon', tmp.path('old.json'), '-o', dest, '--quiet');
     const encode = (to: string) => start(['encode', tmp.path('big.txt'), '--lexicon', tmp.path('new.json'), '-o', to, '--force', '--quiet']);
     const began = Date.now();
-    const reference = await encode(tmp.path('reference')).ended;
+    // At the same depth as dest: the manifest names the lexicon relative to its own folder.
+    await mkdir(tmp.path('ref'));
+    const reference = await encode(tmp.path('ref/out')).ended;
     const runMs = Date.now() - began; // only to spread the kills over a run, never asserted
     expect([reference.code, reference.stderr]).toEqual([0, '']);
     const names = ['ids.npy', 'lengths.npy', 'manifest.json'];
@@ -189,7 +191,7 @@ describe('an encode to .npy files killed at any moment (SIGKILL)', () => {
     const after = new Map<string, Buffer>();
     for (const name of names) {
       before.set(name, await readFile(join(dest, name)));
-      after.set(name, await readFile(tmp.path(`reference/${name}`)));
+      after.set(name, await readFile(tmp.path(`ref/out/${name}`)));
     }
     expect(readNpy(after.get('ids.npy') as Buffer).shape).toEqual([DOCUMENTS, 32]);
 
