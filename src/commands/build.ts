@@ -10,7 +10,11 @@ import { tallyCorpus } from '../pipeline/tallyCorpus.js';
 import { loadTally } from '../files/loadTally.js';
 import { resolveRules } from '../rules/TextRules.js';
 import type { TallyFile } from '../tally/tallyFile.js';
-import { LexlockError } from '../LexlockError.js';
+import { formatWhere, isLexlockError, LexlockError } from '../LexlockError.js';
+import type { MeasuredFit } from '../lexicon/measuredFit.js';
+import { LEAST_LIMIT_MIB, memoryPlan, MOST_LIMIT_MIB, type MemoryPlan } from '../tally/memoryPlan.js';
+import { describeLimit, RECORD_LIMIT_DEFAULT } from '../corpus/recordLimit.js';
+import { limitChunkMemo } from '../rules/fast/scanWordTokens.js';
 import { describeLexiconText } from './describeLexicon.js';
 import type { Io } from './Io.js';
 import { assertOutputWritable, encodedSummary, isJsonl, openEncodedOutput } from './encodedOutput.js';
@@ -47,7 +51,9 @@ lexlock tally or merge) it freezes those counts instead; the rule and corpus fla
   --record-limit MiB    refuse any one line, CSV record or folder file larger than this (default 64, at most 256)
   --force               overwrite an existing lexicon file
   --threads N           worker threads (default: the machine's cores from 8 MiB of corpus); the lexicon is the same for any N
-  --memory-limit MiB    count in bounded memory (two passes; still exact, or refused with the budget needed)
+  --memory-limit MiB    count within MiB of memory (at least 32; one or two passes): the exact lexicon,
+                        or a refusal that names a limit that will do; one document may then take
+                        only a share of it
   --encode OUT          also encode the corpus with the new lexicon, from the same reading: OUT as
                         in lexlock encode -o (.jsonl, or a folder of .npy files, which needs --length);
                         keeps 4 bytes a token in a temporary file beside -o until then
@@ -94,6 +100,7 @@ export async function build(argv: readonly string[], io: Io): Promise<number> {
   let counted: TallyFile;
   let stats = { replaced: 0, skipped: 0 };
   let recorded: RecordedTally | null = null;
+  let measured: MeasuredFit | undefined;
   if (fromTally) {
     counted = await loadTally(corpus);
     const r = counted.tally.rules;
@@ -103,13 +110,24 @@ export async function build(argv: readonly string[], io: Io): Promise<number> {
     }
   } else {
     const progress = createProgress(io, 'build', { quiet: args.switches.has('quiet'), totalBytes: await corpusBytes(corpus) });
-    const reader = readCorpus(corpus, { ...options, onProgress: (p) => progress.update(p) });
+    const memoryLimit = memoryLimitFlag(args);
+    const reserved = args.values.get('reserve') ?? [];
+    const plan = memoryLimit === undefined ? null : memoryPlan(memoryLimit, cap + new Set(reserved).size);
+    const recordLimit = options.maxRecordBytes ?? RECORD_LIMIT_DEFAULT;
+    // Under a memory limit one document may take only the plan's share: the reader refuses a longer one.
+    const readerLimit = plan === null ? recordLimit : Math.min(recordLimit, plan.recordBytes);
+    const reader = readCorpus(corpus, { ...options, maxRecordBytes: readerLimit, onProgress: (p) => progress.update(p) });
     let result;
     try {
-      const memoryLimit = wholeNumberFlag(args, 'memory-limit', 16);
       if (encodeTo !== undefined) result = recorded = await tallyAndRecord(reader, rules ?? resolveRules(), spillPathFor(output), { threads: threadsFlag(args, await corpusBytes(corpus)) });
-      else if (memoryLimit === undefined) result = await tallyCorpus(reader, rules ?? resolveRules(), { threads: threadsFlag(args, await corpusBytes(corpus)) });
-      else result = await boundedCorpusTally(() => reader, rules ?? resolveRules(), { cap, minCount, reserved: args.values.get('reserve') ?? [], memoryLimitMiB: memoryLimit });
+      else if (plan === null) result = await tallyCorpus(reader, rules ?? resolveRules(), { threads: threadsFlag(args, await corpusBytes(corpus)) });
+      else {
+        limitChunkMemo(plan.memoBytes);
+        result = await boundedCorpusTally(() => reader, rules ?? resolveRules(), { cap, minCount, reserved, memoryLimitMiB: plan.limitMiB }).catch((e: unknown) => {
+          throw isLexlockError(e) && e.code === 'RECORD_TOO_LARGE' && readerLimit < recordLimit ? documentTooLarge(e, plan, recordLimit, cap + new Set(reserved).size) : e;
+        });
+        measured = result.measured;
+      }
     } finally {
       progress.done();
     }
@@ -133,6 +151,7 @@ export async function build(argv: readonly string[], io: Io): Promise<number> {
       snippets: counted.snippets,
       source: corpus,
       fields: counted.fields,
+      ...(measured === undefined ? {} : { measured }),
     });
     await saveLexicon(output, lexicon, { force });
   } catch (e) {
@@ -172,6 +191,48 @@ function refuseWithEncode(args: ParsedArgs, fromTally: boolean, encodeTo: string
   if (!isJsonl(encodeTo) && !hasShape) {
     throw new LexlockError('USAGE_MISSING', `--encode ${encodeTo}: .npy output needs a fixed length; pass --length L (or encode to a .jsonl file for variable-length rows)`, { field: '--length' });
   }
+}
+
+/** `--memory-limit MiB`: undefined when absent; a usage error naming the least limit when below it. */
+function memoryLimitFlag(args: ParsedArgs): number | undefined {
+  const raw = valueOf(args, 'memory-limit');
+  if (raw === undefined) return undefined;
+  const mib = /^[0-9]+$/.test(raw) ? Number(raw) : Number.NaN;
+  if (!Number.isSafeInteger(mib)) {
+    throw new LexlockError('USAGE_BAD_VALUE', `--memory-limit: "${raw}" is not a whole number of MiB; try --memory-limit ${LEAST_LIMIT_MIB}`, { field: '--memory-limit' });
+  }
+  if (mib < LEAST_LIMIT_MIB) {
+    throw new LexlockError(
+      'USAGE_BAD_VALUE',
+      `--memory-limit: ${mib} MiB is below the ${LEAST_LIMIT_MIB} MiB a bounded build needs at least (one document in flight, the tokenizer, the lexicon and some counters); try --memory-limit ${LEAST_LIMIT_MIB}`,
+      { field: '--memory-limit' },
+    );
+  }
+  if (mib > MOST_LIMIT_MIB) {
+    throw new LexlockError('USAGE_BAD_VALUE', `--memory-limit: ${mib} MiB is more than the ${MOST_LIMIT_MIB} MiB (1 TiB) it takes; try --memory-limit ${MOST_LIMIT_MIB}`, { field: '--memory-limit' });
+  }
+  return mib;
+}
+
+/**
+ * The reader's refusal of a document longer than a memory limit allows one (`RECORD_TOO_LARGE`), as
+ * `MEMORY_LIMIT` naming the limit that allows documents up to the record limit itself.
+ */
+function documentTooLarge(e: LexlockError, plan: MemoryPlan, recordLimit: number, kept: number): LexlockError {
+  let enough = plan.limitMiB;
+  while (enough < MOST_LIMIT_MIB && memoryPlan(enough, kept).recordBytes < recordLimit) enough = Math.min(MOST_LIMIT_MIB, enough * 2);
+  let low = Math.floor(enough / 2);
+  while (low + 1 < enough) {
+    const mid = Math.floor((low + enough) / 2);
+    if (memoryPlan(mid, kept).recordBytes >= recordLimit) enough = mid;
+    else low = mid;
+  }
+  const place = formatWhere(e.where);
+  return new LexlockError(
+    'MEMORY_LIMIT',
+    `${place === '' ? '' : `${place}: `}a document is longer than the ${describeLimit(plan.recordBytes)} --memory-limit ${plan.limitMiB} allows for one; split it into smaller documents, or try --memory-limit ${enough} (documents up to ${describeLimit(recordLimit)})`,
+    e.where,
+  );
 }
 
 /** True for a build input that is a tally file rather than a corpus. */

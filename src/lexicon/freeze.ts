@@ -8,6 +8,7 @@ import { Lexicon } from './Lexicon.js';
 import { capTie } from './capTie.js';
 import { rankTokens } from './rankTokens.js';
 import { SeenTokens } from './SeenTokens.js';
+import { coveragePoints, type MeasuredFit } from './measuredFit.js';
 import { checkShape, type Shape } from './Shape.js';
 
 /** How a tally becomes a lexicon. Every member is optional. */
@@ -32,13 +33,16 @@ export interface FreezeOptions {
   fields?: { text: string | null; label: string | null };
   /** Time of the build, for the fit record (default now). */
   now?: Date;
+  /**
+   * The fit's figures of the whole corpus when the tally holds only the tokens to keep (a bounded
+   * build, see boundedTally): distinct tokens, coverage, the cap's group of equal counts, the filter.
+   */
+  measured?: MeasuredFit;
 }
 
 /** The vocabulary cap when none is given, in the library and on the command line. */
 export const DEFAULT_CAP = 30000;
 
-/** Caps at which the fit records coverage (besides the chosen cap and all tokens). */
-const COVERAGE_CAPS = [10, 100, 1000, 2000, 5000, 10000, 20000, 30000, 50000, 100000, 200000, 500000, 1000000];
 
 function wholeNumber(value: number, name: string, min: number): number {
   if (!Number.isSafeInteger(value) || value < min) {
@@ -72,7 +76,7 @@ export function freeze(tally: Tally, options: FreezeOptions = {}): Lexicon {
   const allRanked = rankTokens(tally.entries(), 1, cap === null ? Infinity : cap + reservedSet.size);
   const ranked = allRanked.filter(([t, n]) => n >= minCount && !reservedSet.has(t));
   const kept = cap === null ? ranked : ranked.slice(0, cap);
-  const tie = cap === null ? null : capTie(ranked.length, (i) => (ranked[i] as [string, number])[1], cap);
+  const tie = cap === null ? null : options.measured !== undefined ? options.measured.capTie : capTie(ranked.length, (i) => (ranked[i] as [string, number])[1], cap);
   const withLabels = options.labels ?? true;
   const labels = withLabels && tally.labels.size > 0 ? [...tally.labels.keys()].sort() : null;
 
@@ -89,17 +93,8 @@ export function freeze(tally: Tally, options: FreezeOptions = {}): Lexicon {
   for (const r of reserved) inVocabulary += tally.countOf(r);
   const oovTokens = tally.tokens - inVocabulary;
 
-  const caps = new Set(COVERAGE_CAPS.filter((c) => c < allRanked.length));
-  if (cap !== null) caps.add(Math.min(cap, allRanked.length));
-  caps.add(allRanked.length);
-  const sortedCaps = [...caps].sort((a, b) => a - b);
-  const coverage: Fit['coverage'] = [];
-  let covered = 0;
-  let i = 0;
-  for (const c of sortedCaps) {
-    for (; i < c; i++) covered += (allRanked[i] as [string, number])[1];
-    coverage.push({ cap: c, share: tally.tokens === 0 ? 0 : covered / tally.tokens });
-  }
+  const measured = options.measured;
+  const coverage = measured?.coverage ?? coveragePoints(allRanked.map(([, n]) => n), tally.tokens, cap, true);
 
   let truncation: Fit['truncation'] = null;
   if (shape !== null) {
@@ -124,7 +119,8 @@ export function freeze(tally: Tally, options: FreezeOptions = {}): Lexicon {
     minCount,
     documents: tally.documents,
     tokens: tally.tokens,
-    types: tally.types,
+    types: measured?.types ?? tally.types,
+    ...(measured?.typesEstimated === true ? { typesEstimated: true } : {}),
     oovTokens,
     oovRate: tally.tokens === 0 ? 0 : oovTokens / tally.tokens,
     length: summarizeLengths(tally.lengths),
@@ -134,7 +130,7 @@ export function freeze(tally: Tally, options: FreezeOptions = {}): Lexicon {
     coverage,
     truncation,
     capTie: tie,
-    seen: SeenTokens.of(tally.tokenList(), tally.types)?.toJSON() ?? null,
+    seen: (measured === undefined ? SeenTokens.of(tally.tokenList(), tally.types) : measured.seen)?.toJSON() ?? null,
   };
 
   return new Lexicon(encoding, fit, makeCanaries(tally.rules, options.snippets ?? []));
