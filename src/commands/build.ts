@@ -12,8 +12,8 @@ import { resolveRules } from '../rules/TextRules.js';
 import type { TallyFile } from '../tally/tallyFile.js';
 import { formatWhere, isLexlockError, LexlockError } from '../LexlockError.js';
 import type { MeasuredFit } from '../lexicon/measuredFit.js';
-import { LEAST_LIMIT_MIB, memoryPlan, MOST_LIMIT_MIB, type MemoryPlan } from '../tally/memoryPlan.js';
-import { describeLimit, RECORD_LIMIT_DEFAULT } from '../corpus/recordLimit.js';
+import { formatBytes, LEAST_LIMIT_MIB, memoryPlan, MOST_LIMIT_MIB, recordLimitFor, type MemoryPlan } from '../tally/memoryPlan.js';
+import { RECORD_LIMIT_DEFAULT } from '../corpus/recordLimit.js';
 import { limitChunkMemo } from '../rules/fast/scanWordTokens.js';
 import { describeLexiconText } from './describeLexicon.js';
 import type { Io } from './Io.js';
@@ -114,9 +114,10 @@ export async function build(argv: readonly string[], io: Io): Promise<number> {
     const reserved = args.values.get('reserve') ?? [];
     const plan = memoryLimit === undefined ? null : memoryPlan(memoryLimit, cap + new Set(reserved).size);
     const recordLimit = options.maxRecordBytes ?? RECORD_LIMIT_DEFAULT;
+    let reader = readCorpus(corpus, { ...options, onProgress: (p) => progress.update(p) });
     // Under a memory limit one document may take only the plan's share: the reader refuses a longer one.
-    const readerLimit = plan === null ? recordLimit : Math.min(recordLimit, plan.recordBytes);
-    const reader = readCorpus(corpus, { ...options, maxRecordBytes: readerLimit, onProgress: (p) => progress.update(p) });
+    const readerLimit = plan === null ? recordLimit : Math.min(recordLimit, recordLimitFor(plan, reader.kind));
+    if (readerLimit !== recordLimit) reader = readCorpus(corpus, { ...options, maxRecordBytes: readerLimit, onProgress: (p) => progress.update(p) });
     let result;
     try {
       if (encodeTo !== undefined) result = recorded = await tallyAndRecord(reader, rules ?? resolveRules(), spillPathFor(output), { threads: threadsFlag(args, await corpusBytes(corpus)) });
@@ -124,7 +125,7 @@ export async function build(argv: readonly string[], io: Io): Promise<number> {
       else {
         limitChunkMemo(plan.memoBytes);
         result = await boundedCorpusTally(() => reader, rules ?? resolveRules(), { cap, minCount, reserved, memoryLimitMiB: plan.limitMiB }).catch((e: unknown) => {
-          throw isLexlockError(e) && e.code === 'RECORD_TOO_LARGE' && readerLimit < recordLimit ? documentTooLarge(e, plan, recordLimit, cap + new Set(reserved).size) : e;
+          throw isLexlockError(e) && e.code === 'RECORD_TOO_LARGE' && readerLimit < recordLimit ? documentTooLarge(e, plan, reader.kind, recordLimit, cap + new Set(reserved).size) : e;
         });
         measured = result.measured;
       }
@@ -216,21 +217,23 @@ function memoryLimitFlag(args: ParsedArgs): number | undefined {
 
 /**
  * The reader's refusal of a document longer than a memory limit allows one (`RECORD_TOO_LARGE`), as
- * `MEMORY_LIMIT` naming the limit that allows documents up to the record limit itself.
+ * `MEMORY_LIMIT` naming the least limit that allows documents up to the record limit itself.
  */
-function documentTooLarge(e: LexlockError, plan: MemoryPlan, recordLimit: number, kept: number): LexlockError {
-  let enough = plan.limitMiB;
-  while (enough < MOST_LIMIT_MIB && memoryPlan(enough, kept).recordBytes < recordLimit) enough = Math.min(MOST_LIMIT_MIB, enough * 2);
-  let low = Math.floor(enough / 2);
-  while (low + 1 < enough) {
-    const mid = Math.floor((low + enough) / 2);
-    if (memoryPlan(mid, kept).recordBytes >= recordLimit) enough = mid;
+function documentTooLarge(e: LexlockError, plan: MemoryPlan, kind: string, recordLimit: number, kept: number): LexlockError {
+  const allows = (limit: number) => recordLimitFor(memoryPlan(limit, kept), kind) >= recordLimit;
+  let low = plan.limitMiB;
+  let high = low;
+  while (high < MOST_LIMIT_MIB && !allows(high)) high = Math.min(MOST_LIMIT_MIB, high * 2);
+  while (low + 1 < high) {
+    const mid = Math.floor((low + high) / 2);
+    if (allows(mid)) high = mid;
     else low = mid;
   }
   const place = formatWhere(e.where);
   return new LexlockError(
     'MEMORY_LIMIT',
-    `${place === '' ? '' : `${place}: `}a document is longer than the ${describeLimit(plan.recordBytes)} --memory-limit ${plan.limitMiB} allows for one; split it into smaller documents, or try --memory-limit ${enough} (documents up to ${describeLimit(recordLimit)})`,
+    `${place === '' ? '' : `${place}: `}a document is longer than the ${formatBytes(recordLimitFor(plan, kind))} --memory-limit ${plan.limitMiB} allows for one in this corpus; ` +
+      `split it into smaller documents, or try --memory-limit ${high} (documents up to ${formatBytes(recordLimit)}; a smaller --record-limit asks less)`,
     e.where,
   );
 }

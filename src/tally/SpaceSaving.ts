@@ -84,7 +84,8 @@ export class SpaceSaving {
     this.#prev = new Int32Array(capacity);
     this.#next = new Int32Array(capacity);
     this.#group = new Int32Array(capacity);
-    this.#start = new Int32Array(capacity).fill(NONE);
+    // Only counters handed out are ever read (#countersUsed), and each gets its start when it does.
+    this.#start = new Int32Array(capacity);
     this.#length = new Int32Array(capacity);
     this.#hash = new Int32Array(capacity);
     const groups = capacity + 2;

@@ -27,6 +27,26 @@ export class TokenLengths {
   }
 
   /**
+   * The code units of the `n` longest occurrences, at most: more than `n` distinct tokens of the corpus
+   * can take (a lexicon keeping `n` of them, say).
+   */
+  longestUnits(n: number): number {
+    let left = n;
+    let units = 0;
+    for (let b = this.#long.length - 1; b >= 10 && left > 0; b--) {
+      const k = Math.min(left, this.#long[b] as number);
+      units += k * 2 ** (b + 1);
+      left -= k;
+    }
+    for (let length = EXACT - 1; length >= 0 && left > 0; length--) {
+      const k = Math.min(left, this.#exact[length] as number);
+      units += k * length;
+      left -= k;
+    }
+    return units;
+  }
+
+  /**
    * Arena code units enough for SpaceSaving with `counters` counters to never give one up: room for
    * the `counters` longest tokens and one more newcomer, plus the share it keeps free.
    * @example lengths.arenaFor(100000) // about 1.1 million for tokens of 6 code units

@@ -6,7 +6,7 @@ import { SpanIndex } from '../rules/SpanIndex.js';
 import type { TextRules } from '../rules/TextRules.js';
 import { TokenSpans } from '../rules/TokenSpans.js';
 import { DistinctEstimate } from './DistinctEstimate.js';
-import { limitFor, memoryPlan, MOST_LIMIT_MIB, resultBytesFor, type MemoryNeeds, type MemoryPlan } from './memoryPlan.js';
+import { formatBytes, limitFor, memoryPlan, MOST_LIMIT_MIB, resultBytesFor, type MemoryNeeds, type MemoryPlan } from './memoryPlan.js';
 import { scanPieces } from './scanPieces.js';
 import { SpaceSaving } from './SpaceSaving.js';
 import { spanHashes } from './spanHashes.js';
@@ -15,7 +15,6 @@ import { TokenLengths } from './TokenLengths.js';
 
 const times = (n: number) => (n === 1 ? 'once' : `${n.toLocaleString('en-US')} times`);
 const count = (n: number) => n.toLocaleString('en-US');
-const mib = (bytes: number) => `${Math.ceil(bytes / 2 ** 20).toLocaleString('en-US')} MiB`;
 
 /** Heap a label costs in the count (its string, map entry and figures), besides 2 bytes a character. */
 const BYTES_PER_LABEL = 96;
@@ -87,7 +86,7 @@ export async function boundedTally(
   const reserved = [...new Set(options.reserved ?? [])];
   const places = options.cap + reserved.length;
   const plan = options.plan ?? memoryPlan(options.memoryLimitMiB, places);
-  const summary = new SpaceSaving(plan.counters, plan.arenaUnits);
+  const summary = reserve(() => new SpaceSaving(plan.counters, plan.arenaUnits), plan);
   const seen = SeenTokens.collecting();
   const distinct = new DistinctEstimate();
   const lengths = new TokenLengths();
@@ -137,13 +136,13 @@ export async function boundedTally(
   const bar = Math.max(options.minCount, monitored.length >= places ? (scratch[places - 1] as number) : 0);
   const floor = summary.floor;
   let passes = 1;
-  // exact[c]: counter c's exact count, or -1 when it is not counted exactly.
-  const exact = new Float64Array(summary.capacity).fill(-1);
+  // exact[c]: monitored counter c's exact count, or -1 when it is not counted exactly.
+  const exact = reserve(() => new Float64Array(summary.capacity), plan);
   if (floor === 0 && first.skippedChars === 0) {
     for (const c of monitored) exact[c] = summary.countAt(c);
   } else {
     passes = 2;
-    for (const c of monitored) if (summary.countAt(c) >= bar) exact[c] = 0;
+    for (const c of monitored) exact[c] = summary.countAt(c) >= bar ? 0 : -1;
     const before = summary.total;
     const second = await pass(open(), rules, plan, (src, from, to, folded) => {
       spanHashes(src, from, to, folded, hashes);
@@ -190,12 +189,19 @@ export async function boundedTally(
   let keptUnits = 0;
   for (const c of kept) keptUnits += summary.lengthAt(c);
   for (const r of reserved) keptUnits += r.length;
-  const resultBytes = resultBytesFor(kept.length + reserved.length, keptUnits);
+  // Unproven, the kept tokens are not known yet: as many as the cap, as long as its longest tokens can be.
+  const resultBytes = proven ? resultBytesFor(kept.length + reserved.length, keptUnits) : resultBytesFor(places, lengths.longestUnits(options.cap) + reserved.reduce((n, r) => n + r.length, 0));
 
   const needs: MemoryNeeds = { counters: 0, arenaUnits: 0, runBytes: first.runBytes, labelBytes: labels.extra > 0 ? labels.held + labels.extra : 0, resultBytes };
   if (!proven || resultBytes > plan.resultBytes || first.skippedChars > 0 || labels.extra > 0) {
     const threshold = last ?? options.minCount;
-    needs.counters = Math.floor(total / Math.max(threshold, 1)) + 1;
+    // Sure to do: so many counters that no token of the cap's count can be given up (Space-Saving's
+    // bound, floor <= total / counters). A counter for every distinct token does too, with no token
+    // given up at all: the estimate of them, with a tenth to spare, when that is less. An estimate is
+    // no proof: a count that had room for it and still fell short names the sure figure.
+    const sure = Math.floor(total / Math.max(threshold, 1)) + 1;
+    const estimated = Math.ceil(distinct.estimate() * 1.1) + 16;
+    needs.counters = summary.capacity >= estimated ? sure : Math.min(sure, estimated);
     needs.arenaUnits = lengths.arenaFor(needs.counters);
     const reasons: string[] = [];
     const limit = `--memory-limit ${count(options.memoryLimitMiB)}`;
@@ -207,10 +213,13 @@ export async function boundedTally(
     }
     if (floor === Infinity) reasons.push(`a token is longer than ${limit} leaves room for`);
     if (first.skippedChars > 0) {
-      reasons.push(`${first.runWhere ?? 'a document'} holds text with no white space to cut it at that takes about ${mib(first.runBytes)} to tokenize, more than the ${mib(plan.runBytes)} ${limit} allows`);
+      reasons.push(`${first.runWhere ?? 'a document'} holds text with no white space to cut it at that takes about ${formatBytes(first.runBytes)} to tokenize, more than the ${formatBytes(plan.runBytes)} ${limit} allows`);
     }
-    if (labels.extra > 0) reasons.push(`the corpus has more labels than the ${mib(plan.labelBytes)} ${limit} keeps for them`);
-    if (resultBytes > plan.resultBytes) reasons.push(`the lexicon of ${count(kept.length + reserved.length)} tokens takes about ${mib(resultBytes)} while it is made, more than the ${mib(plan.resultBytes)} ${limit} leaves for it`);
+    if (labels.extra > 0) reasons.push(`the corpus has more labels than the ${formatBytes(plan.labelBytes)} ${limit} keeps for them`);
+    if (resultBytes > plan.resultBytes) {
+      const lexicon = proven ? `the lexicon of ${count(kept.length + reserved.length)} tokens takes` : `the lexicon, of up to ${count(places)} tokens, may take`;
+      reasons.push(`${lexicon} about ${formatBytes(resultBytes)} while it is made, more than the ${formatBytes(plan.resultBytes)} ${limit} leaves for it`);
+    }
     const enough = limitFor(needs, places);
     const todo = enough === null ? `no limit up to ${count(MOST_LIMIT_MIB)} MiB would do; build without --memory-limit, or with a smaller --cap` : `try --memory-limit ${enough}`;
     throw new LexlockError('MEMORY_LIMIT', `${reasons.join('; ')}; ${todo}`, { field: '--memory-limit' });
@@ -236,6 +245,20 @@ export async function boundedTally(
     seen: seen.folded(types),
   };
   return { tally: result, measured, capacity: summary.capacity, floor, passes };
+}
+
+/** Makes what the plan sizes, or says that the machine has not the memory the limit asks for. */
+function reserve<T>(make: () => T, plan: MemoryPlan): T {
+  try {
+    return make();
+  } catch (e) {
+    if (!(e instanceof RangeError)) throw e;
+    throw new LexlockError(
+      'MEMORY_LIMIT',
+      `could not reserve the ${formatBytes(plan.poolBytes)} --memory-limit ${count(plan.limitMiB)} counts in (${e.message}): this machine has less memory to give than that; try a smaller --memory-limit`,
+      { field: '--memory-limit' },
+    );
+  }
 }
 
 /** The counter of a token given as a string, or -1. */

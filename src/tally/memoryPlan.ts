@@ -24,11 +24,18 @@ const PLANNED_UNITS_PER_TOKEN = 16;
 const RESULT_BYTES = 3 * MIB;
 /** Share of the limit the lexicon may take at least (so that a large enough limit holds any lexicon). */
 const RESULT_SHARE = 1 / 16;
-/** Share of the limit for one document in flight: its text as read, and one piece of it tokenized. */
+/**
+ * Share of the limit for one document in flight: its text as read (three quarters, see
+ * {@link recordLimitFor}), and one uncut run of it tokenized (a quarter).
+ */
 const DOCUMENT_SHARE = 1 / 8;
 const DOCUMENT_LEAST = 2 * MIB;
-/** Bytes of memory the reader takes per byte of one record, while it gathers, decodes and parses it (measured: 3 to 4.5). */
-const BYTES_PER_RECORD_BYTE = 6;
+/**
+ * Bytes of memory a reader takes per byte of one record while it gathers, decodes and parses it, by
+ * corpus kind. Measured as the peak RSS a bounded build of one record of 4 to 16 MiB added: 2.6 for a
+ * line of .txt or .jsonl, 1.6 for a file of a folder, 38 for a field of .csv or .tsv (fast-csv).
+ */
+const READER_BYTES_PER_BYTE: Readonly<Record<string, number>> = { txt: 4, jsonl: 4, folder: 4, csv: 48, tsv: 48 };
 /** Share of the limit for the labels' counts. */
 const LABEL_SHARE = 1 / 64;
 const LABEL_LEAST = MIB / 2;
@@ -39,6 +46,9 @@ const MEMO_MOST = 8 * MIB;
 const HEAP_SLACK = 4 / 3;
 /** Of the counting pool (off the heap), the share for counters; the rest holds their tokens' code units. */
 const COUNTER_SHARE = 0.75;
+/** The most counters and arena code units SpaceSaving takes. */
+const MOST_COUNTERS = 2 ** 30 - 1;
+const MOST_ARENA_UNITS = 2 ** 31 - 1;
 /** Counters a count needs at least to be worth starting. */
 const LEAST_COUNTERS = 1024;
 /**
@@ -66,9 +76,7 @@ export interface MemoryPlan {
   arenaUnits: number;
   /** Bytes for one document in flight. */
   documentBytes: number;
-  /** The longest record (line, CSV record, folder file) the reader may gather, in bytes: a share of `documentBytes`. */
-  recordBytes: number;
-  /** Bytes one uncut run of text (no white space to cut it at) may take while it is tokenized: the rest of `documentBytes`. */
+  /** Bytes one uncut run of text (no white space to cut it at) may take while it is tokenized: a quarter of `documentBytes`. */
   runBytes: number;
   labelBytes: number;
   memoBytes: number;
@@ -107,7 +115,8 @@ export function memoryPlan(limitMiB: number, kept: number): MemoryPlan {
   const documentBytes = Math.max(DOCUMENT_LEAST, Math.floor(limit * DOCUMENT_SHARE));
   const labelBytes = Math.max(LABEL_LEAST, Math.floor(limit * LABEL_SHARE));
   const memoBytes = Math.min(MEMO_MOST, Math.floor(limit * MEMO_SHARE));
-  const heapFor = (result: number) => Math.ceil((SUNDRY_BYTES + documentBytes + labelBytes + memoBytes + result) * HEAP_SLACK);
+  // The labels count twice: in the count, and in the lexicon being made.
+  const heapFor = (result: number) => Math.ceil((SUNDRY_BYTES + documentBytes + labelBytes + memoBytes + labelBytes + result) * HEAP_SLACK);
   let resultBytes = Math.max(resultBytesFor(kept, kept * PLANNED_UNITS_PER_TOKEN), Math.floor(limit * RESULT_SHARE));
   let poolBytes = limit - youngMiB * MIB - heapFor(resultBytes);
   if (countersIn(poolBytes) < LEAST_COUNTERS) {
@@ -120,11 +129,11 @@ export function memoryPlan(limitMiB: number, kept: number): MemoryPlan {
   const heapBytes = heapFor(resultBytes);
   return {
     limitMiB,
-    counters: Math.max(1, countersIn(poolBytes)),
-    arenaUnits: Math.max(64, Math.floor((poolBytes * (1 - COUNTER_SHARE)) / 2)),
+    // Within what SpaceSaving takes (its offsets are 32-bit): past some 100 GiB a larger limit adds nothing.
+    counters: Math.min(MOST_COUNTERS, Math.max(1, countersIn(poolBytes))),
+    arenaUnits: Math.min(MOST_ARENA_UNITS, Math.max(64, Math.floor((poolBytes * (1 - COUNTER_SHARE)) / 2))),
     documentBytes,
-    recordBytes: Math.floor(documentBytes / 2 / BYTES_PER_RECORD_BYTE),
-    runBytes: Math.floor(documentBytes / 2),
+    runBytes: Math.floor(documentBytes / 4),
     labelBytes,
     memoBytes,
     resultBytes,
@@ -132,6 +141,25 @@ export function memoryPlan(limitMiB: number, kept: number): MemoryPlan {
     heapMiB: Math.ceil(heapBytes / MIB),
     youngMiB,
   };
+}
+
+/**
+ * The longest record (a line, a CSV record, a file of a folder) a reader of `kind` may gather under
+ * the plan, in bytes: three quarters of the document's share, over what the reader takes a byte.
+ * @example recordLimitFor(memoryPlan(256, 30000), 'txt') // 6 MiB
+ */
+export function recordLimitFor(plan: MemoryPlan, kind: string): number {
+  return Math.max(1, Math.floor((plan.documentBytes * 3) / 4 / (READER_BYTES_PER_BYTE[kind] ?? 48)));
+}
+
+/**
+ * Bytes as messages say them: `512 KiB`, `3.4 MiB`, `120 MiB` (rounded up, so a need is never understated).
+ * @example formatBytes(3.4 * 2 ** 20) // '3.4 MiB'
+ */
+export function formatBytes(bytes: number): string {
+  if (bytes < MIB) return `${Math.ceil(bytes / 1024)} KiB`;
+  const mib = bytes / MIB;
+  return mib < 10 ? `${Math.ceil(mib * 10) / 10} MiB` : `${Math.ceil(mib).toLocaleString('en-US')} MiB`;
 }
 
 /** The most counters (and their arena's share) that fit in `poolBytes`. */

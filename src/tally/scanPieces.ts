@@ -59,6 +59,52 @@ function pieceEnd(text: string, from: number, most: number, rules: TextRules | n
   return text.length;
 }
 
+/** What a normalizing cut may not come before: marks, letters with case or that case skips (a final sigma looks past them), Hangul jamo that join a syllable. */
+const JOINS_BEFORE = /[\p{M}\p{Cased}\p{Case_Ignorable}\u1160-\u11ff]/u;
+
+/**
+ * Whether `text` may be cut just before `text[i]` for normalizing and lower-casing as `rules` say, the
+ * pieces done one by one giving the whole done at once: `text[i]` starts a character that normalization
+ * leaves as it is and that never composes with what comes before it (a starter, quick-check Yes: Unicode
+ * UAX #15, "Stable Code Points"), has no case and is not skipped by the final-sigma rule (Unicode's
+ * Final_Sigma condition), so lower-casing on either side is unchanged.
+ */
+function normalCutBefore(text: string, i: number, rules: TextRules): boolean {
+  const c = text.charCodeAt(i);
+  if (c >= 0xdc00 && c <= 0xdfff) return false;
+  const high = c >= 0xd800 && c <= 0xdbff;
+  const next = text.charCodeAt(i + 1);
+  const char = high && next >= 0xdc00 && next <= 0xdfff ? text.slice(i, i + 2) : text[i] as string;
+  if (high && char.length === 1) return false;
+  if (rules.unicode !== 'none' && char.normalize(rules.unicode) !== char) return false;
+  return !JOINS_BEFORE.test(char);
+}
+
+/**
+ * The length of `piece` normalized as `rules` say, found `most` characters at a time where
+ * {@link normalCutBefore} allows, so that only one such chunk is normalized at once; -1 when a chunk
+ * (no cut in it) would take more than `bytes` to normalize.
+ */
+function normalizedLength(piece: string, rules: TextRules, most: number, bytes: number): number {
+  let length = 0;
+  for (let at = 0; at < piece.length; ) {
+    let end = Math.min(piece.length, at + most);
+    if (end < piece.length) {
+      let cut = end;
+      while (cut > at && !normalCutBefore(piece, cut, rules)) cut--;
+      if (cut === at) {
+        cut = end + 1;
+        while (cut < piece.length && !normalCutBefore(piece, cut, rules)) cut++;
+      }
+      end = cut;
+    }
+    if ((end - at) * NORMALIZE_BYTES_PER_CHAR > bytes) return -1;
+    length += normalize(piece.slice(at, end), rules).length;
+    at = end;
+  }
+  return length;
+}
+
 function isAscii(text: string): boolean {
   for (let i = 0; i < text.length; i++) if (text.charCodeAt(i) > 0x7f) return false;
   return true;
@@ -119,8 +165,17 @@ export function scanPieces(
       continue;
     }
     if (piece.length * NORMALIZE_BYTES_PER_CHAR > runBytes) {
-      skip(piece.length * 18 * TOKENIZE_BYTES_PER_CHAR, piece.length * 18);
-      continue;
+      // Too long to normalize at once with room for NFKC's worst: find its normalized length a chunk at a
+      // time, and go on only if the normalized text fits (then its runs are measured as any others).
+      const length = normalizedLength(piece, rules, pieceChars, runBytes);
+      if (length < 0) {
+        skip(piece.length * 18 * TOKENIZE_BYTES_PER_CHAR, piece.length * 18);
+        continue;
+      }
+      if (length * 2 * 2 > runBytes) {
+        skip(length * TOKENIZE_BYTES_PER_CHAR, length);
+        continue;
+      }
     }
     const normal = normalize(piece, rules);
     const plain = plainOf(rules);

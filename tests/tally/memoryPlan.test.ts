@@ -1,6 +1,6 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { LEAST_LIMIT_MIB, limitFor, memoryPlan, MOST_LIMIT_MIB, resultBytesFor } from '../../src/tally/memoryPlan.js';
+import { formatBytes, LEAST_LIMIT_MIB, limitFor, memoryPlan, MOST_LIMIT_MIB, recordLimitFor, resultBytesFor } from '../../src/tally/memoryPlan.js';
 import { SpaceSaving } from '../../src/tally/SpaceSaving.js';
 
 const MIB = 2 ** 20;
@@ -13,7 +13,8 @@ describe('memoryPlan', () => {
         const counting = SpaceSaving.bytesFor(p.counters, p.arenaUnits);
         expect(p.youngMiB * MIB + p.heapMiB * MIB + p.poolBytes).toBeLessThanOrEqual(limit * MIB + MIB);
         expect(counting).toBeLessThanOrEqual(p.poolBytes);
-        expect(p.recordBytes * 6 + p.runBytes).toBeLessThanOrEqual(p.documentBytes);
+        expect(recordLimitFor(p, 'txt') * 4 + p.runBytes).toBeLessThanOrEqual(p.documentBytes);
+        expect(recordLimitFor(p, 'csv') * 48 + p.runBytes).toBeLessThanOrEqual(p.documentBytes);
       }),
     );
   });
@@ -22,7 +23,7 @@ describe('memoryPlan', () => {
     let before = memoryPlan(LEAST_LIMIT_MIB, 30000);
     for (let limit = LEAST_LIMIT_MIB + 1; limit < 3000; limit += 7) {
       const p = memoryPlan(limit, 30000);
-      for (const member of ['arenaUnits', 'documentBytes', 'recordBytes', 'runBytes', 'labelBytes', 'resultBytes'] as const) expect(p[member]).toBeGreaterThanOrEqual(before[member]);
+      for (const member of ['arenaUnits', 'documentBytes', 'runBytes', 'labelBytes', 'resultBytes'] as const) expect(p[member]).toBeGreaterThanOrEqual(before[member]);
       if (before.resultBytes === p.resultBytes) expect(p.counters).toBeGreaterThanOrEqual(before.counters);
       before = p;
     }
@@ -45,6 +46,16 @@ describe('memoryPlan', () => {
         }
       }),
     );
+  });
+
+  it.each([
+    [1000, '1 KiB'],
+    [512 * 1024, '512 KiB'],
+    [3.41 * MIB, '3.5 MiB'],
+    [10 * MIB, '10 MiB'],
+    [1234.5 * MIB, '1,235 MiB'],
+  ])('says %d bytes as %s (rounded up)', (bytes, text) => {
+    expect(formatBytes(bytes)).toBe(text);
   });
 
   it('says when no limit would do', () => {

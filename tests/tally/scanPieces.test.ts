@@ -48,6 +48,27 @@ describe('scanPieces', () => {
     for (const t of [...speeches.slice(0, 40), ...demo]) expect(pieceTokens(t, {}, 200)).toEqual(tokenize(t, resolveRules()));
   });
 
+  // With no ASCII white space a text is one raw piece; too long to normalize at once with room for
+  // NFKC's worst (18 units a character), it is measured a chunk at a time, cut before characters that
+  // never join what comes before them (UAX #15 stable code points), then cut again where its normalized
+  // text has white space (U+00A0 and U+FDFA's expansion bring some).
+  it('gives the tokens of the whole text when it must normalize a long run a chunk at a time (property, against tokenize)', () => {
+    let whole = 0;
+    const noSpace = fc.array(fc.constantFrom('\uFDFA', 'ﬁ\u00a0', '東\u00a0', '京', 'e\u0301\u00a0', 'é', '\u00a0', 'Σ\u00a0', 'ς', 'ｶ', 'ﾞ', '\u1100\u1161', '가\u00a0', '😀', '①\u00a0', '\u00a0x'), { minLength: 1, maxLength: 40 }).map((ps) => ps.join(''));
+    fc.assert(
+      fc.property(noSpace, fc.constantFrom<TextRulesInput>({}, { unicode: 'NFC' }, { case: 'keep' }), fc.integer({ min: 1, max: 6 }), (t, input, pieceChars) => {
+        const runBytes = t.length * 72 - 1;
+        const out: string[] = [];
+        const skipped = scanPieces(t, resolveRules(input), new TokenSpans(false), (s) => out.push(...s.toArray()), runBytes, pieceChars);
+        if (skipped !== null) return;
+        whole += 1;
+        expect(out).toEqual(tokenize(t, resolveRules(input)));
+      }),
+      { numRuns: 1000 },
+    );
+    expect(whole).toBeGreaterThan(200);
+  });
+
   it('cuts a long text into pieces of about the size asked for', () => {
     const long = 'the ferry was late again '.repeat(400);
     const sizes: number[] = [];
