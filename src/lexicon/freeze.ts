@@ -5,8 +5,8 @@ import { summarizeLengths } from '../tally/nearestRank.js';
 import type { Tally } from '../tally/Tally.js';
 import { VERSION } from '../version.js';
 import { Lexicon } from './Lexicon.js';
-import { capTie } from './capTie.js';
-import { rankTokens } from './rankTokens.js';
+import { capTie, type CapTie } from './capTie.js';
+import { topRanked } from './topRanked.js';
 import { SeenTokens } from './SeenTokens.js';
 import { coveragePoints, type MeasuredFit } from './measuredFit.js';
 import { checkShape, type Shape } from './Shape.js';
@@ -44,6 +44,44 @@ export interface FreezeOptions {
 export const DEFAULT_CAP = 30000;
 
 
+/**
+ * The ranked counts (at least `minCount`, one count of each reserved token taken out: they rank
+ * nowhere) of `all`, every count most first, as the number of them and a reader of the i-th, without
+ * copying `all`.
+ */
+function rankedCounts(all: Float64Array, minCount: number, reservedCounts: readonly number[]): [number, (i: number) => number] {
+  /** The first index whose count is below `c`. */
+  const below = (c: number) => {
+    let lo = 0;
+    let hi = all.length;
+    while (lo < hi) {
+      const mid = (lo + hi) >> 1;
+      if ((all[mid] as number) >= c) lo = mid + 1;
+      else hi = mid;
+    }
+    return lo;
+  };
+  const n = below(minCount);
+  // Each reserved token's count leaves the ranking at one of the places that hold it.
+  const removed: number[] = [];
+  for (const c of reservedCounts) {
+    if (c < minCount) continue;
+    let at = below(c) - 1;
+    while (removed.includes(at)) at--;
+    removed.push(at);
+  }
+  removed.sort((a, b) => a - b);
+  const countAt = (i: number) => {
+    let p = i;
+    for (const r of removed) {
+      if (r > p) break;
+      p++;
+    }
+    return all[p] as number;
+  };
+  return [n - removed.length, countAt];
+}
+
 function wholeNumber(value: number, name: string, min: number): number {
   if (!Number.isSafeInteger(value) || value < min) {
     throw new LexlockError('BAD_OPTION', `${name}: ${String(value)} is not a whole number of at least ${min}`, { field: name });
@@ -72,11 +110,20 @@ export function freeze(tally: Tally, options: FreezeOptions = {}): Lexicon {
   }
   const shape = options.shape ? checkShape({ ...options.shape }) : null;
 
-  // Tie order matters only where tokens are kept; further down only counts are summed (coverage).
-  const allRanked = rankTokens(tally.entries(), 1, cap === null ? Infinity : cap + reservedSet.size);
-  const ranked = allRanked.filter(([t, n]) => n >= minCount && !reservedSet.has(t));
-  const kept = cap === null ? ranked : ranked.slice(0, cap);
-  const tie = cap === null ? null : options.measured !== undefined ? options.measured.capTie : capTie(ranked.length, (i) => (ranked[i] as [string, number])[1], cap);
+  // The kept tokens, in rank order, without ranking every token; then every count, most first, for
+  // coverage and the cap's group of equal counts (one typed array, however many tokens there are).
+  const kept = topRanked((visit) => tally.forEachCount(visit), cap ?? Infinity, (t, n) => n >= minCount && !reservedSet.has(t));
+  const measured = options.measured;
+  let coverage: Fit['coverage'];
+  let tie: CapTie | null;
+  if (measured !== undefined) {
+    coverage = measured.coverage;
+    tie = cap === null ? null : measured.capTie;
+  } else {
+    const all = tally.countList().sort().reverse();
+    coverage = coveragePoints(all, tally.tokens, cap, true);
+    tie = cap === null ? null : capTie(...rankedCounts(all, minCount, reserved.map((r) => tally.countOf(r))), cap);
+  }
   const withLabels = options.labels ?? true;
   const labels = withLabels && tally.labels.size > 0 ? [...tally.labels.keys()].sort() : null;
 
@@ -93,8 +140,6 @@ export function freeze(tally: Tally, options: FreezeOptions = {}): Lexicon {
   for (const r of reserved) inVocabulary += tally.countOf(r);
   const oovTokens = tally.tokens - inVocabulary;
 
-  const measured = options.measured;
-  const coverage = measured?.coverage ?? coveragePoints(allRanked.map(([, n]) => n), tally.tokens, cap, true);
 
   let truncation: Fit['truncation'] = null;
   if (shape !== null) {

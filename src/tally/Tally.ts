@@ -102,6 +102,12 @@ export class Tally {
     }
   }
 
+  /** Calls `visit` with every counted token and its occurrences, in the order first counted (no pair made for each). */
+  forEachCount(visit: (token: string, count: number) => void): void {
+    let n = 0;
+    for (const token of this.#numbers.keys()) visit(token, this.#count[n++] as number);
+  }
+
   /** Every counted token, in the order first counted. */
   tokenList(): IterableIterator<string> {
     return this.#numbers.keys();
