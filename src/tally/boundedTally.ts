@@ -194,7 +194,15 @@ export async function boundedTally(
 
   const needs: MemoryNeeds = { counters: 0, arenaUnits: 0, runBytes: first.runBytes, labelBytes: labels.extra > 0 ? labels.held + labels.extra : 0, resultBytes };
   if (!proven || resultBytes > plan.resultBytes || first.skippedChars > 0 || labels.extra > 0) {
-    const threshold = last ?? options.minCount;
+    // The cap's count: exact when the cap's tokens were all counted; else at least the cap-th largest
+    // exact count of the tokens counted in pass 2 (`scratch` is free again), and at least `bar`.
+    let counted = 0;
+    for (const c of monitored) {
+      const n = exact[c] as number;
+      if (n >= options.minCount && !reservedCounters.has(c)) scratch[counted++] = n;
+    }
+    const surely = scratch.subarray(0, counted).sort().reverse()[options.cap - 1] ?? 0;
+    const threshold = last ?? Math.max(bar, surely);
     // Sure to do: so many counters that no token of the cap's count can be given up (Space-Saving's
     // bound, floor <= total / counters). A counter for every distinct token does too, with no token
     // given up at all: the estimate of them, with a tenth to spare, when that is less. An estimate is
@@ -208,7 +216,7 @@ export async function boundedTally(
     if (!proven && floor !== Infinity && first.skippedChars === 0) {
       reasons.push(
         `${limit} holds ${count(summary.capacity)} counters, too few to prove the top ${count(options.cap)} tokens exact on this corpus: ` +
-          `the last of them occurs ${times(threshold)}, but a token not followed may have occurred up to ${times(floor)}; about ${count(needs.counters)} counters would do`,
+          `the last of them occurs ${last === undefined ? 'at least ' : ''}${times(threshold)}, but a token not followed may have occurred up to ${times(floor)}; about ${count(needs.counters)} counters would do`,
       );
     }
     if (floor === Infinity) reasons.push(`a token is longer than ${limit} leaves room for`);

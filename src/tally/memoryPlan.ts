@@ -153,13 +153,13 @@ export function recordLimitFor(plan: MemoryPlan, kind: string): number {
 }
 
 /**
- * Bytes as messages say them: `512 KiB`, `3.4 MiB`, `120 MiB` (rounded up, so a need is never understated).
- * @example formatBytes(3.4 * 2 ** 20) // '3.4 MiB'
+ * Bytes as messages say them: `512 KiB`, `3.41 MiB`, `120 MiB` (rounded up, so a need is never understated).
+ * @example formatBytes(3.41 * 2 ** 20) // '3.41 MiB'
  */
 export function formatBytes(bytes: number): string {
   if (bytes < MIB) return `${Math.ceil(bytes / 1024)} KiB`;
   const mib = bytes / MIB;
-  return mib < 10 ? `${Math.ceil(mib * 10) / 10} MiB` : `${Math.ceil(mib).toLocaleString('en-US')} MiB`;
+  return mib < 10 ? `${Math.ceil(mib * 100) / 100} MiB` : `${Math.ceil(mib).toLocaleString('en-US')} MiB`;
 }
 
 /** The most counters (and their arena's share) that fit in `poolBytes`. */

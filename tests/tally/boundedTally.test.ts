@@ -105,7 +105,7 @@ describe('boundedTally', () => {
     const docs = zipfDocuments(3, 200, 5000);
     const e = await caughtError(() => boundedTally(() => docs, rules, { cap: 500, minCount: 1, memoryLimitMiB: 40, plan: smallPlan(20) }));
     expect(e.message).toMatch(
-      /^--memory-limit 40 holds 20 counters, too few to prove the top 500 tokens exact on this corpus: the last of them occurs (once|[\d,]+ times), but a token not followed may have occurred up to (once|[\d,]+ times); about [\d,]+ counters would do; the lexicon, of up to 500 tokens, may take about [\d.]+ MiB while it is made, more than the [\d.]+ MiB --memory-limit 40 leaves for it; try --memory-limit \d+$/,
+      /^--memory-limit 40 holds 20 counters, too few to prove the top 500 tokens exact on this corpus: the last of them occurs (at least )?(once|[\d,]+ times), but a token not followed may have occurred up to (once|[\d,]+ times); about [\d,]+ counters would do; the lexicon, of up to 500 tokens, may take about [\d.]+ MiB while it is made, more than the [\d.]+ MiB --memory-limit 40 leaves for it; try --memory-limit \d+$/,
     );
   });
 
@@ -113,7 +113,7 @@ describe('boundedTally', () => {
     const docs = ['a b c', `d ${'x'.repeat(30000)} e`, 'a b'];
     const plan = { ...memoryPlan(32, 10), runBytes: 100_000 };
     const e = await caughtError(() => boundedTally(() => docs, rules, { cap: 10, minCount: 1, memoryLimitMiB: 32, plan }));
-    expect(e.message).toMatch(/^document 2 holds text with no white space to cut it at that takes about 3.5 MiB to tokenize, more than the 98 KiB --memory-limit 32 allows; try --memory-limit \d+$/);
+    expect(e.message).toMatch(/^document 2 holds text with no white space to cut it at that takes about 3.44 MiB to tokenize, more than the 98 KiB --memory-limit 32 allows; try --memory-limit \d+$/);
     const named = Number(/(\d+)$/.exec(e.message)?.[1]);
     expectLikeExact(await boundedTally(() => docs, rules, { cap: 10, minCount: 1, memoryLimitMiB: named }), docs, 10, 1);
   });

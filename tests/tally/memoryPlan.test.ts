@@ -51,7 +51,7 @@ describe('memoryPlan', () => {
   it.each([
     [1000, '1 KiB'],
     [512 * 1024, '512 KiB'],
-    [3.41 * MIB, '3.5 MiB'],
+    [3.413 * MIB, '3.42 MiB'],
     [10 * MIB, '10 MiB'],
     [1234.5 * MIB, '1,235 MiB'],
   ])('says %d bytes as %s (rounded up)', (bytes, text) => {
