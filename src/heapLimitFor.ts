@@ -1,4 +1,5 @@
-import { DEFAULT_CAP } from './lexicon/freeze.js';
+// Kept light: the main thread of a capped build loads this and little else (not the tokenizer, the schema).
+import { DEFAULT_CAP } from './lexicon/defaultCap.js';
 import { LEAST_LIMIT_MIB, memoryPlan, MOST_LIMIT_MIB } from './tally/memoryPlan.js';
 
 /**

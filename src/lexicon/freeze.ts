@@ -4,6 +4,7 @@ import type { Encoding, Fit } from '../artifact/schema.js';
 import { summarizeLengths } from '../tally/nearestRank.js';
 import type { Tally } from '../tally/Tally.js';
 import { VERSION } from '../version.js';
+import { DEFAULT_CAP } from './defaultCap.js';
 import { Lexicon } from './Lexicon.js';
 import { capTie, type CapTie } from './capTie.js';
 import { topRanked } from './topRanked.js';
@@ -40,8 +41,7 @@ export interface FreezeOptions {
   measured?: MeasuredFit;
 }
 
-/** The vocabulary cap when none is given, in the library and on the command line. */
-export const DEFAULT_CAP = 30000;
+export { DEFAULT_CAP } from './defaultCap.js';
 
 
 /**
