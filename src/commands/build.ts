@@ -255,4 +255,11 @@ function refuseCorpusFlags(values: ReadonlyMap<string, string[]>): void {
       throw new LexlockError('USAGE_BAD_VALUE', `--${name} cannot be used with a tally: its corpus was read when it was counted; leave it out, or pass it to lexlock tally`, { field: `--${name}` });
     }
   }
+  if (values.has('memory-limit')) {
+    throw new LexlockError(
+      'USAGE_BAD_VALUE',
+      '--memory-limit cannot be used with a tally: it bounds counting a corpus, and a tally is counted already (its counts are read whole); leave it out',
+      { field: '--memory-limit' },
+    );
+  }
 }
