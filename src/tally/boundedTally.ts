@@ -133,7 +133,7 @@ export async function boundedTally(
   // is below the `places`-th largest count - error is beaten by `places` tokens for sure.
   const monitored = summary.monitored();
   const scratch = Float64Array.from(monitored, (c) => summary.countAt(c) - summary.errorAt(c)).sort().reverse();
-  const bar = Math.max(options.minCount, monitored.length >= places ? (scratch[places - 1] as number) : 0);
+  const bar = Math.max(options.minCount, places > 0 && monitored.length >= places ? (scratch[places - 1] as number) : 0);
   const floor = summary.floor;
   let passes = 1;
   // exact[c]: monitored counter c's exact count, or -1 when it is not counted exactly.
@@ -180,7 +180,8 @@ export async function boundedTally(
   const ranked = rankable.subarray(0, rankableCount);
   const rankedCounts = Float64Array.from(ranked, (c) => exact[c] as number).sort().reverse();
   const last = rankedCounts[options.cap - 1];
-  const proven = last === undefined ? unknown < options.minCount : last > unknown;
+  // A cap of 0 keeps no ranked token: nothing to prove.
+  const proven = options.cap === 0 || (last === undefined ? unknown < options.minCount : last > unknown);
 
   // The kept tokens: those above the cap's count, then the first of its group in string order.
   let keptCount = 0;

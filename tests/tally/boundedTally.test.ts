@@ -101,6 +101,13 @@ describe('boundedTally', () => {
     expect(lexicon.fit?.oovTokens).toBe(exact.fit?.oovTokens);
   });
 
+  it('keeps only reserved tokens with a cap of 0, whatever the counters', async () => {
+    const docs = zipfDocuments(5, 300, 3000);
+    const exact = freeze(Tally.fromTexts(docs, rules), { cap: 0, reserved: ['<s>'] });
+    const bounded = await boundedTally(() => docs, rules, { cap: 0, minCount: 1, reserved: ['<s>'], memoryLimitMiB: 32, plan: smallPlan(10) });
+    expect(freeze(bounded.tally, { cap: 0, reserved: ['<s>'], measured: bounded.measured }).fingerprint).toBe(exact.fingerprint);
+  });
+
   it('refuses, naming a limit, when the counters are too few', async () => {
     const docs = zipfDocuments(3, 200, 5000);
     const e = await caughtError(() => boundedTally(() => docs, rules, { cap: 500, minCount: 1, memoryLimitMiB: 40, plan: smallPlan(20) }));
