@@ -25,8 +25,9 @@ export default defineConfig([
     target: 'es2020',
   },
   {
-    // The executable and the worker-thread entry it (and dist/node.*) start: dist/bin.js, dist/worker.js.
-    entry: { bin: 'src/bin.ts', worker: 'src/workers/worker.ts' },
+    // The executable and the worker-thread entries it (and dist/node.*) start: dist/bin.js, dist/worker.js,
+    // and dist/cappedWorker.js (the thread a command runs on under --memory-limit).
+    entry: { bin: 'src/bin.ts', worker: 'src/workers/worker.ts', cappedWorker: 'src/cappedWorker.ts' },
     format: ['esm'],
     sourcemap: true,
     target: 'node20',

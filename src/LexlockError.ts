@@ -48,6 +48,7 @@ export type LexlockErrorCode =
   | 'NPY_SHAPE'
   | 'WRITER_CLOSED'
   | 'MEMORY_LIMIT'
+  | 'CORPUS_CHANGED'
   | 'NOT_A_TALLY'
   | 'BAD_TALLY'
   | 'TALLY_RULES_DIFFER'

@@ -1,10 +1,5 @@
 #!/usr/bin/env node
 // The `lexlock` executable: hands argv and the process streams to the CLI and exits with its code.
-import { spawn } from 'node:child_process';
-import { constants } from 'node:os';
-import { fileURLToPath } from 'node:url';
-import { EXIT, interruptedLine, run, type StopSignal } from './cli.js';
-import { removeOpenTemps } from './files/openTemps.js';
 import { heapLimitFor } from './heapLimitFor.js';
 import { limitHeapGrowth } from './limitHeapGrowth.js';
 
@@ -17,23 +12,21 @@ for (const stream of [process.stdout, process.stderr]) {
 }
 
 const argv = process.argv.slice(2);
-const heapLimit = heapLimitFor(argv);
-if (heapLimit !== null && !process.execArgv.some((a) => a.startsWith('--max-old-space-size'))) {
-  // `--memory-limit` must bound the heap too, and V8 takes that limit only at start: run again with it.
-  const child = spawn(process.execPath, [...process.execArgv, `--max-old-space-size=${heapLimit}`, fileURLToPath(import.meta.url), ...argv], { stdio: 'inherit' });
-  // The child cleans up, prints the line and exits 130 or 143; this process passes the signal on and
-  // then the child's code (a child killed outright by a signal: 128 + its number, as shells report it).
-  for (const signal of ['SIGINT', 'SIGTERM'] as const) process.on(signal, () => child.kill(signal));
-  child.on('exit', (code, signal) => {
-    process.exitCode = code ?? (signal === null ? EXIT.badInput : 128 + constants.signals[signal]);
-  });
+limitHeapGrowth();
+const heapLimits = heapLimitFor(argv);
+if (heapLimits !== null) {
+  // `--memory-limit` must bound the heap too, and V8 takes a limit only when a heap is made: the command
+  // runs on a worker thread of its own, made with that limit (and ends with this process, whatever kills it).
+  const { runCapped } = await import('./runCapped.js');
+  process.exitCode = await runCapped(argv, heapLimits, process);
 } else {
+  const { EXIT, interruptedLine, run } = await import('./cli.js');
+  const { removeOpenTemps } = await import('./files/openTemps.js');
   // Ctrl-C (SIGINT) or SIGTERM: remove this run's temporary files, say which outputs were left as they
   // were, and exit 130 or 143. Kept listening after the first, so a second signal (a terminal sends
-  // one to the whole process group, and a --memory-limit parent passes its own on) cannot kill the
-  // process halfway through cleaning up.
+  // one to the whole process group) cannot kill the process halfway through cleaning up.
   let stopping = false;
-  const stop = (signal: StopSignal, code: number) => {
+  const stop = (signal: 'SIGINT' | 'SIGTERM', code: number) => {
     if (stopping) return;
     stopping = true;
     // Locks and staged folders are on the same list; outputs already put in place are named as written.
@@ -44,6 +37,5 @@ if (heapLimit !== null && !process.execArgv.some((a) => a.startsWith('--max-old-
   };
   process.on('SIGINT', () => stop('SIGINT', EXIT.interrupted));
   process.on('SIGTERM', () => stop('SIGTERM', EXIT.terminated));
-  limitHeapGrowth();
   process.exitCode = await run(argv, { stdout: process.stdout, stderr: process.stderr, env: process.env });
 }

@@ -42,4 +42,6 @@ export { tallyFileText } from './tally/tallyFileText.js';
 export { tallyFileParse } from './tally/tallyFileParse.js';
 export { tallyFileMerge, type NamedTallyFile } from './tally/tallyFileMerge.js';
 export type { TallyFile } from './tally/tallyFile.js';
-export { boundedTally, type BoundedTallyOptions } from './tally/boundedTally.js';
+export { boundedTally, type BoundedTally, type BoundedTallyOptions } from './tally/boundedTally.js';
+export { memoryPlan, limitFor, LEAST_LIMIT_MIB, type MemoryPlan, type MemoryNeeds } from './tally/memoryPlan.js';
+export type { MeasuredFit } from './lexicon/measuredFit.js';

@@ -8,7 +8,7 @@ export { tallyCorpus, type CorpusTally, type TallyCorpusOptions } from './pipeli
 export { tallyAndRecord, type RecordedTally } from './pipeline/tallyAndRecord.js';
 export { encodeCorpus, type EncodeStats, type RowSink, type EncodeCorpusOptions } from './pipeline/encodeCorpus.js';
 export { auditOnThreads } from './pipeline/auditOnThreads.js';
-export { boundedCorpusTally, type BoundedCorpusOptions } from './pipeline/boundedCorpusTally.js';
+export { boundedCorpusTally, type BoundedCorpusOptions, type BoundedCorpusTally } from './pipeline/boundedCorpusTally.js';
 export { saveTally } from './files/saveTally.js';
 export { loadTally } from './files/loadTally.js';
 export { run } from './cli.js';

@@ -65,6 +65,8 @@ export const fitSchema = z.strictObject({
   documents: count,
   tokens: count,
   types: count,
+  /** Present (true) when `types` is an estimate: a bounded build that could not hold every distinct token. */
+  typesEstimated: z.optional(z.literal(true)),
   oovTokens: count,
   oovRate: share,
   length: lengthSummary,

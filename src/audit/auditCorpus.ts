@@ -1,5 +1,5 @@
 import type { Lexicon } from '../lexicon/Lexicon.js';
-import { rankTokens } from '../lexicon/rankTokens.js';
+import { topRanked } from '../lexicon/topRanked.js';
 import type { Shape } from '../lexicon/Shape.js';
 import { summarizeLengths } from '../tally/nearestRank.js';
 import type { LabelledText } from '../tally/Tally.js';
@@ -45,13 +45,14 @@ export async function auditCorpus(
 export function auditReport(counts: AuditCounts, lexicon: Lexicon, options: AuditOptions = {}): CoverageReport {
   const shape = options.shape === undefined ? lexicon.shape : options.shape;
   const { tally, labels, oovTokens, truncatedDocuments, droppedTokens, paddingTokens } = counts;
-  const ranked = rankTokens(tally.entries());
-  const rankedCounts = ranked.map(([, n]) => n);
+  // Every count, most first, in one typed array; the top OOV tokens by the freeze rule's order, found
+  // without ranking every token (a corpus may have tens of millions).
+  const rankedCounts = tally.countList().sort().reverse();
   const chosenCap = lexicon.encoding.tokens.length - lexicon.encoding.layout.reserved;
-  // `ranked` is in count-then-string order already, so its OOV tokens are too.
-  const oovRanked: TokenCount[] = [];
-  for (const [token, count] of ranked) if (!lexicon.has(token)) oovRanked.push({ token, count });
-  const topOov = oovRanked.slice(0, options.top ?? 50);
+  const top = options.top ?? 50;
+  const oovRanked = (n: number, keep: (token: string) => boolean): TokenCount[] =>
+    topRanked((visit) => tally.forEachCount(visit), n, (token) => !lexicon.has(token) && keep(token)).map(([token, count]) => ({ token, count }));
+  const topOov = oovRanked(top, () => true);
   const lengthSummary = summarizeLengths(tally.lengths);
   const oovRate = tally.tokens === 0 ? 0 : oovTokens / tally.tokens;
   const sortedLabels = [...labels.entries()].sort((a, b) => (a[0] < b[0] ? -1 : a[0] > b[0] ? 1 : 0));
@@ -84,7 +85,7 @@ export function auditReport(counts: AuditCounts, lexicon: Lexicon, options: Audi
       length: lengthSummary,
       labelDocuments: new Map(sortedLabels.map(([l, a]) => [l, a.documents])),
       oovTokens: oovRanked,
-      top: options.top ?? 50,
+      top,
     });
   }
   return report;

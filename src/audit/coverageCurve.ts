@@ -6,7 +6,7 @@ const POINTS = 240;
  * cover. Every cap up to {@link POINTS} types, log-spaced caps beyond, always the last one and `extra`
  * caps (e.g. the chosen cap) when they are within range.
  */
-export function coverageCurve(rankedCounts: readonly number[], total: number, extra: readonly number[] = []): Array<{ cap: number; share: number }> {
+export function coverageCurve(rankedCounts: ArrayLike<number>, total: number, extra: readonly number[] = []): Array<{ cap: number; share: number }> {
   const n = rankedCounts.length;
   const caps = new Set<number>();
   if (n <= POINTS) {

@@ -9,8 +9,8 @@ export interface DriftInput {
   oovRate: number;
   length: LengthSummary;
   labelDocuments: ReadonlyMap<string, number>;
-  /** Tokens with no id in the lexicon, most frequent first. */
-  oovTokens: readonly TokenCount[];
+  /** The first `n` tokens, most frequent first, with no id in the lexicon that `keep` accepts. */
+  oovTokens: (n: number, keep: (token: string) => boolean) => TokenCount[];
   /** How many unseen tokens to list. */
   top: number;
 }
@@ -29,14 +29,14 @@ export function drift(fit: Fit, now: DriftInput): Drift {
     labels.set(label, entry);
   }
   const seen = fit.seen === null ? null : SeenTokens.parse(fit.seen);
-  const unseen = seen === null ? now.oovTokens : now.oovTokens.filter((t) => !seen.has(t.token));
+  const unseen = now.oovTokens(now.top, seen === null ? () => true : (t) => !seen.has(t));
   const sorted = [...labels.entries()].sort((a, b) => (a[0] < b[0] ? -1 : a[0] > b[0] ? 1 : 0));
   return {
     oovRate: { fit: fit.oovRate, now: now.oovRate },
     length: { fit: fit.length, now: now.length },
     // fromEntries defines own properties, so labels such as "__proto__" stay ordinary members.
     labels: Object.fromEntries(sorted),
-    unseenTokens: unseen.slice(0, now.top),
+    unseenTokens: unseen,
     unseenBasis: seen === null ? 'vocabulary' : 'fit',
   };
 }

@@ -7,7 +7,7 @@ import type { Suggestions } from './CoverageReport.js';
  * rank order (descending). Exact: compares integers, no floating-point shares.
  * @example capForShare([5, 3, 2], 10, 80) // 2 (5 + 3 = 8 of 10)
  */
-export function capForShare(rankedCounts: readonly number[], total: number, percent: number): number {
+export function capForShare(rankedCounts: ArrayLike<number>, total: number, percent: number): number {
   if (total === 0) return 0;
   let covered = 0;
   for (let i = 0; i < rankedCounts.length; i++) {
@@ -21,7 +21,7 @@ export function capForShare(rankedCounts: readonly number[], total: number, perc
  * Caps for 90/95/99 % of token occurrences (with the nearest caps around each that keep whole counts)
  * and lengths for 90/95/99 % of documents.
  */
-export function suggest(rankedCounts: readonly number[], total: number, lengths: ReadonlyMap<number, number>): Suggestions {
+export function suggest(rankedCounts: ArrayLike<number>, total: number, lengths: ReadonlyMap<number, number>): Suggestions {
   const capFor90 = capForShare(rankedCounts, total, 90);
   const capFor95 = capForShare(rankedCounts, total, 95);
   const capFor99 = capForShare(rankedCounts, total, 99);

@@ -13,10 +13,14 @@ import { tallyCorpus } from '../pipeline/tallyCorpus.js';
 import { loadTally } from '../files/loadTally.js';
 import { resolveRules } from '../rules/TextRules.js';
 import type { TallyFile } from '../tally/tallyFile.js';
-import { LexlockError, isLexlockError } from '../LexlockError.js';
+import { formatWhere, isLexlockError, LexlockError } from '../LexlockError.js';
 import type { Shape } from '../lexicon/Shape.js';
 import type { TextRules } from '../rules/TextRules.js';
 import { resolve, sep } from 'node:path';
+import type { MeasuredFit } from '../lexicon/measuredFit.js';
+import { formatBytes, LEAST_LIMIT_MIB, memoryPlan, MOST_LIMIT_MIB, recordLimitFor, type MemoryPlan } from '../tally/memoryPlan.js';
+import { RECORD_LIMIT_DEFAULT } from '../corpus/recordLimit.js';
+import { limitChunkMemo } from '../rules/fast/scanWordTokens.js';
 import { describeLexiconText } from './describeLexicon.js';
 import type { Io } from './Io.js';
 import { assertOutputName, assertOutputWritable, encodedSummary, isJsonl, openEncodedOutput, type EncodedOutput, type EncodedSource } from './encodedOutput.js';
@@ -53,7 +57,9 @@ lexlock tally or merge) it freezes those counts instead; the rule and corpus fla
   --record-limit MiB    refuse any one line, CSV record or folder file larger than this (default 64, at most 256)
   --force               overwrite an existing lexicon file
   --threads N           worker threads (default: the machine's cores from 8 MiB of corpus); the lexicon is the same for any N
-  --memory-limit MiB    count in bounded memory (two passes; still exact, or refused with the budget needed)
+  --memory-limit MiB    count within MiB of memory (at least 32; one or two passes): the exact lexicon,
+                        or a refusal that names a limit that will do; one document may then take
+                        only a share of it
   --encode OUT          also encode the corpus with the new lexicon, from the same reading: OUT as
                         in lexlock encode -o (.jsonl, or a folder of .npy files, which needs --length);
                         keeps 4 bytes a token in a temporary file beside -o until then
@@ -128,6 +134,7 @@ async function buildHolding(context: {
   let counted: TallyFile;
   let stats = { replaced: 0, skipped: 0 };
   let recorded: RecordedTally | null = null;
+  let measured: MeasuredFit | undefined;
   if (fromTally) {
     counted = await loadTally(corpus);
     const r = counted.tally.rules;
@@ -137,13 +144,25 @@ async function buildHolding(context: {
     }
   } else {
     const progress = createProgress(io, 'build', { quiet: args.switches.has('quiet'), totalBytes: await corpusBytes(corpus) });
-    const reader = readCorpus(corpus, { ...options, onProgress: (p) => progress.update(p) });
+    const memoryLimit = memoryLimitFlag(args);
+    const reserved = args.values.get('reserve') ?? [];
+    const plan = memoryLimit === undefined ? null : memoryPlan(memoryLimit, cap + new Set(reserved).size);
+    const recordLimit = options.maxRecordBytes ?? RECORD_LIMIT_DEFAULT;
+    let reader = readCorpus(corpus, { ...options, onProgress: (p) => progress.update(p) });
+    // Under a memory limit one document may take only the plan's share: the reader refuses a longer one.
+    const readerLimit = plan === null ? recordLimit : Math.min(recordLimit, recordLimitFor(plan, reader.kind));
+    if (readerLimit !== recordLimit) reader = readCorpus(corpus, { ...options, maxRecordBytes: readerLimit, onProgress: (p) => progress.update(p) });
     let result;
     try {
-      const memoryLimit = wholeNumberFlag(args, 'memory-limit', 16);
       if (encodeTo !== undefined) result = recorded = await tallyAndRecord(reader, rules ?? resolveRules(), spillPathFor(output), { threads: threadsFlag(args, await corpusBytes(corpus)) });
-      else if (memoryLimit === undefined) result = await tallyCorpus(reader, rules ?? resolveRules(), { threads: threadsFlag(args, await corpusBytes(corpus)) });
-      else result = await boundedCorpusTally(() => reader, rules ?? resolveRules(), { cap, minCount, reserved: args.values.get('reserve') ?? [], memoryLimitMiB: memoryLimit });
+      else if (plan === null) result = await tallyCorpus(reader, rules ?? resolveRules(), { threads: threadsFlag(args, await corpusBytes(corpus)) });
+      else {
+        limitChunkMemo(plan.memoBytes);
+        result = await boundedCorpusTally(() => reader, rules ?? resolveRules(), { cap, minCount, reserved, memoryLimitMiB: plan.limitMiB }).catch((e: unknown) => {
+          throw isLexlockError(e) && e.code === 'RECORD_TOO_LARGE' && readerLimit < recordLimit ? documentTooLarge(e, plan, reader.kind, recordLimit, cap + new Set(reserved).size) : e;
+        });
+        measured = result.measured;
+      }
     } finally {
       progress.done();
     }
@@ -168,6 +187,7 @@ async function buildHolding(context: {
       // short document may hold personal data (the fixed probe texts are the canaries).
       source: corpus,
       fields: counted.fields,
+      ...(measured === undefined ? {} : { measured }),
     });
   } catch (e) {
     await recorded?.discard();
@@ -245,6 +265,50 @@ function refuseWithEncode(args: ParsedArgs, fromTally: boolean, encodeTo: string
   }
 }
 
+/** `--memory-limit MiB`: undefined when absent; a usage error naming the least limit when below it. */
+function memoryLimitFlag(args: ParsedArgs): number | undefined {
+  const raw = valueOf(args, 'memory-limit');
+  if (raw === undefined) return undefined;
+  const mib = /^[0-9]+$/.test(raw) ? Number(raw) : Number.NaN;
+  if (!Number.isSafeInteger(mib)) {
+    throw new LexlockError('USAGE_BAD_VALUE', `--memory-limit: "${raw}" is not a whole number of MiB; try --memory-limit ${LEAST_LIMIT_MIB}`, { field: '--memory-limit' });
+  }
+  if (mib < LEAST_LIMIT_MIB) {
+    throw new LexlockError(
+      'USAGE_BAD_VALUE',
+      `--memory-limit: ${mib} MiB is below the ${LEAST_LIMIT_MIB} MiB a bounded build needs at least (one document in flight, the tokenizer, the lexicon and some counters); try --memory-limit ${LEAST_LIMIT_MIB}`,
+      { field: '--memory-limit' },
+    );
+  }
+  if (mib > MOST_LIMIT_MIB) {
+    throw new LexlockError('USAGE_BAD_VALUE', `--memory-limit: ${mib} MiB is more than the ${MOST_LIMIT_MIB} MiB (1 TiB) it takes; try --memory-limit ${MOST_LIMIT_MIB}`, { field: '--memory-limit' });
+  }
+  return mib;
+}
+
+/**
+ * The reader's refusal of a document longer than a memory limit allows one (`RECORD_TOO_LARGE`), as
+ * `MEMORY_LIMIT` naming the least limit that allows documents up to the record limit itself.
+ */
+function documentTooLarge(e: LexlockError, plan: MemoryPlan, kind: string, recordLimit: number, kept: number): LexlockError {
+  const allows = (limit: number) => recordLimitFor(memoryPlan(limit, kept), kind) >= recordLimit;
+  let low = plan.limitMiB;
+  let high = low;
+  while (high < MOST_LIMIT_MIB && !allows(high)) high = Math.min(MOST_LIMIT_MIB, high * 2);
+  while (low + 1 < high) {
+    const mid = Math.floor((low + high) / 2);
+    if (allows(mid)) high = mid;
+    else low = mid;
+  }
+  const place = formatWhere(e.where);
+  return new LexlockError(
+    'MEMORY_LIMIT',
+    `${place === '' ? '' : `${place}: `}a document is longer than the ${formatBytes(recordLimitFor(plan, kind))} --memory-limit ${plan.limitMiB} allows for one in this corpus; ` +
+      `split it into smaller documents, or try --memory-limit ${high} (documents up to ${formatBytes(recordLimit)}; a smaller --record-limit asks less)`,
+    e.where,
+  );
+}
+
 /** True for a build input that is a tally file rather than a corpus. */
 function isTallyPath(path: string): boolean {
   return path.toLowerCase().endsWith('.tally');
@@ -261,5 +325,12 @@ function refuseCorpusFlags(values: ReadonlyMap<string, string[]>): void {
     if (values.has(name)) {
       throw new LexlockError('USAGE_BAD_VALUE', `--${name} cannot be used with a tally: its corpus was read when it was counted; leave it out, or pass it to lexlock tally`, { field: `--${name}` });
     }
+  }
+  if (values.has('memory-limit')) {
+    throw new LexlockError(
+      'USAGE_BAD_VALUE',
+      '--memory-limit cannot be used with a tally: it bounds counting a corpus, and a tally is counted already (its counts are read whole); leave it out',
+      { field: '--memory-limit' },
+    );
   }
 }

@@ -1,11 +1,24 @@
 import { LexlockError } from '../LexlockError.js';
 
 /** The largest filter a fit record carries (2 Mibit = 256 KiB); bigger corpora get none. */
-const MAX_BITS = 1 << 21;
-/** Bits per token aimed for: about 0.8 % false positives with 7 hashes (Bloom 1970; Broder & Mitzenmacher 2004). */
+export const MAX_BITS = 1 << 21;
+/**
+ * Bits per token at least: with {@link HASHES} hashes, at most 0.82 % false positives at 10 bits a token
+ * and fewer with more (Bloom 1970; Broder & Mitzenmacher 2004). Sizes are powers of two, so a filter of
+ * {@link MAX_BITS} folds into any smaller one (a bounded build fills one while it counts, see `folded`).
+ */
 const BITS_PER_TOKEN = 10;
-/** Above this false-positive rate a filter says too little to be worth its bytes. */
-const MAX_FALSE_POSITIVES = 0.02;
+/** Hashes per token. */
+export const HASHES = 7;
+/** The second hash's offset basis is FNV's XOR this. */
+const SECOND_SEED = 0x5bd1e995;
+
+/** The filter size for `types` tokens: a power of two of at least 64 bits and 10 a token, or null past {@link MAX_BITS}. */
+function bitsFor(types: number): number | null {
+  let m = 64;
+  while (m < types * BITS_PER_TOKEN) m *= 2;
+  return m > MAX_BITS ? null : m;
+}
 
 /** FNV-1a over UTF-16 code units, 32 bits; `seed` varies the offset basis. */
 function fnv1a(text: string, seed: number): number {
@@ -33,15 +46,45 @@ export class SeenTokens {
     this.types = types;
   }
 
-  /** A filter of these tokens, or null when the corpus has too many for {@link MAX_BITS}. */
+  /** A filter of these tokens (`types` of them), or null when there are too many for {@link MAX_BITS}. */
   static of(tokens: Iterable<string>, types: number): SeenTokens | null {
-    const m = Math.max(64, Math.ceil((types * BITS_PER_TOKEN) / 8) * 8);
-    if (m > MAX_BITS) return null;
-    const k = Math.max(1, Math.min(16, Math.round((m / Math.max(types, 1)) * Math.LN2)));
-    if ((1 - Math.exp((-k * types) / m)) ** k > MAX_FALSE_POSITIVES) return null;
-    const filter = new SeenTokens(new Uint8Array(m / 8), k, types);
+    const m = bitsFor(types);
+    if (m === null) return null;
+    const filter = new SeenTokens(new Uint8Array(m / 8), HASHES, types);
     for (const t of tokens) filter.add(t);
     return filter;
+  }
+
+  /**
+   * An empty filter of {@link MAX_BITS}, to be filled by {@link addHashes} while tokens stream past
+   * (their number unknown yet), then {@link folded} to the size their number calls for.
+   */
+  static collecting(): SeenTokens {
+    return new SeenTokens(new Uint8Array(MAX_BITS / 8), HASHES, 0);
+  }
+
+  /**
+   * This filter folded into the size {@link of} gives `types` tokens (OR of its parts: bit b lands on
+   * bit b mod m, where a filter of m bits would have set it), or null past {@link MAX_BITS}. Folding a
+   * filter of the same tokens gives the filter {@link of} makes of them, bit for bit.
+   */
+  folded(types: number): SeenTokens | null {
+    const m = bitsFor(types);
+    if (m === null) return null;
+    const bytes = m / 8;
+    const out = new Uint8Array(bytes);
+    for (let i = 0; i < this.bits.length; i++) out[i % bytes] = (out[i % bytes] as number) | (this.bits[i] as number);
+    return new SeenTokens(out, this.hashes, types);
+  }
+
+  /** Adds a token by its two hashes (FNV-1a with the offset bases {@link fnv1a} uses here, as spanHashes gives them). */
+  addHashes(first: number, second: number): void {
+    const h1 = first >>> 0;
+    const h2 = (second | 1) >>> 0;
+    for (let i = 0; i < this.hashes; i++) {
+      const bit = this.bitOf(h1, h2, i);
+      this.bits[bit >>> 3] = (this.bits[bit >>> 3] ?? 0) | (1 << (bit & 7));
+    }
   }
 
   /** Reads the stored form (`bits` in base64). */
@@ -66,18 +109,13 @@ export class SeenTokens {
   }
 
   private add(token: string): void {
-    const h1 = fnv1a(token, 0);
-    const h2 = fnv1a(token, 0x5bd1e995) | 1;
-    for (let i = 0; i < this.hashes; i++) {
-      const bit = this.bitOf(h1, h2, i);
-      this.bits[bit >>> 3] = (this.bits[bit >>> 3] ?? 0) | (1 << (bit & 7));
-    }
+    this.addHashes(fnv1a(token, 0), fnv1a(token, SECOND_SEED));
   }
 
   /** False when the token was certainly not in the corpus; true when it probably was. */
   has(token: string): boolean {
     const h1 = fnv1a(token, 0);
-    const h2 = fnv1a(token, 0x5bd1e995) | 1;
+    const h2 = (fnv1a(token, SECOND_SEED) | 1) >>> 0;
     for (let i = 0; i < this.hashes; i++) {
       const bit = this.bitOf(h1, h2, i);
       if (((this.bits[bit >>> 3] ?? 0) & (1 << (bit & 7))) === 0) return false;

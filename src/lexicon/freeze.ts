@@ -4,11 +4,13 @@ import type { Encoding, Fit } from '../artifact/schema.js';
 import { summarizeLengths } from '../tally/nearestRank.js';
 import type { Tally } from '../tally/Tally.js';
 import { VERSION } from '../version.js';
+import { DEFAULT_CAP } from './defaultCap.js';
 import { Lexicon } from './Lexicon.js';
-import { capTie } from './capTie.js';
+import { capTie, type CapTie } from './capTie.js';
 import { corpusName } from './corpusName.js';
-import { rankTokens } from './rankTokens.js';
+import { topRanked } from './topRanked.js';
 import { SeenTokens } from './SeenTokens.js';
+import { coveragePoints, type MeasuredFit } from './measuredFit.js';
 import { checkShape, type Shape } from './Shape.js';
 
 /** How a tally becomes a lexicon. Every member is optional. */
@@ -36,13 +38,53 @@ export interface FreezeOptions {
   fields?: { text: string | null; label: string | null };
   /** Time of the build, for the fit record (default now). */
   now?: Date;
+  /**
+   * The fit's figures of the whole corpus when the tally holds only the tokens to keep (a bounded
+   * build, see boundedTally): distinct tokens, coverage, the cap's group of equal counts, the filter.
+   */
+  measured?: MeasuredFit;
 }
 
-/** The vocabulary cap when none is given, in the library and on the command line. */
-export const DEFAULT_CAP = 30000;
+export { DEFAULT_CAP } from './defaultCap.js';
 
-/** Caps at which the fit records coverage (besides the chosen cap and all tokens). */
-const COVERAGE_CAPS = [10, 100, 1000, 2000, 5000, 10000, 20000, 30000, 50000, 100000, 200000, 500000, 1000000];
+
+/**
+ * The ranked counts (at least `minCount`, one count of each reserved token taken out: they rank
+ * nowhere) of `all`, every count most first, as the number of them and a reader of the i-th, without
+ * copying `all`.
+ */
+function rankedCounts(all: Float64Array, minCount: number, reservedCounts: readonly number[]): [number, (i: number) => number] {
+  /** The first index whose count is below `c`. */
+  const below = (c: number) => {
+    let lo = 0;
+    let hi = all.length;
+    while (lo < hi) {
+      const mid = (lo + hi) >> 1;
+      if ((all[mid] as number) >= c) lo = mid + 1;
+      else hi = mid;
+    }
+    return lo;
+  };
+  const n = below(minCount);
+  // Each reserved token's count leaves the ranking at one of the places that hold it.
+  const removed: number[] = [];
+  for (const c of reservedCounts) {
+    if (c < minCount) continue;
+    let at = below(c) - 1;
+    while (removed.includes(at)) at--;
+    removed.push(at);
+  }
+  removed.sort((a, b) => a - b);
+  const countAt = (i: number) => {
+    let p = i;
+    for (const r of removed) {
+      if (r > p) break;
+      p++;
+    }
+    return all[p] as number;
+  };
+  return [n - removed.length, countAt];
+}
 
 function wholeNumber(value: number, name: string, min: number): number {
   if (!Number.isSafeInteger(value) || value < min) {
@@ -72,11 +114,20 @@ export function freeze(tally: Tally, options: FreezeOptions = {}): Lexicon {
   }
   const shape = options.shape ? checkShape({ ...options.shape }) : null;
 
-  // Tie order matters only where tokens are kept; further down only counts are summed (coverage).
-  const allRanked = rankTokens(tally.entries(), 1, cap === null ? Infinity : cap + reservedSet.size);
-  const ranked = allRanked.filter(([t, n]) => n >= minCount && !reservedSet.has(t));
-  const kept = cap === null ? ranked : ranked.slice(0, cap);
-  const tie = cap === null ? null : capTie(ranked.length, (i) => (ranked[i] as [string, number])[1], cap);
+  // The kept tokens, in rank order, without ranking every token; then every count, most first, for
+  // coverage and the cap's group of equal counts (one typed array, however many tokens there are).
+  const kept = topRanked((visit) => tally.forEachCount(visit), cap ?? Infinity, (t, n) => n >= minCount && !reservedSet.has(t));
+  const measured = options.measured;
+  let coverage: Fit['coverage'];
+  let tie: CapTie | null;
+  if (measured !== undefined) {
+    coverage = measured.coverage;
+    tie = cap === null ? null : measured.capTie;
+  } else {
+    const all = tally.countList().sort().reverse();
+    coverage = coveragePoints(all, tally.tokens, cap, true);
+    tie = cap === null ? null : capTie(...rankedCounts(all, minCount, reserved.map((r) => tally.countOf(r))), cap);
+  }
   const withLabels = options.labels ?? true;
   const labels = withLabels && tally.labels.size > 0 ? [...tally.labels.keys()].sort() : null;
 
@@ -93,17 +144,6 @@ export function freeze(tally: Tally, options: FreezeOptions = {}): Lexicon {
   for (const r of reserved) inVocabulary += tally.countOf(r);
   const oovTokens = tally.tokens - inVocabulary;
 
-  const caps = new Set(COVERAGE_CAPS.filter((c) => c < allRanked.length));
-  if (cap !== null) caps.add(Math.min(cap, allRanked.length));
-  caps.add(allRanked.length);
-  const sortedCaps = [...caps].sort((a, b) => a - b);
-  const coverage: Fit['coverage'] = [];
-  let covered = 0;
-  let i = 0;
-  for (const c of sortedCaps) {
-    for (; i < c; i++) covered += (allRanked[i] as [string, number])[1];
-    coverage.push({ cap: c, share: tally.tokens === 0 ? 0 : covered / tally.tokens });
-  }
 
   let truncation: Fit['truncation'] = null;
   if (shape !== null) {
@@ -128,7 +168,8 @@ export function freeze(tally: Tally, options: FreezeOptions = {}): Lexicon {
     minCount,
     documents: tally.documents,
     tokens: tally.tokens,
-    types: tally.types,
+    types: measured?.types ?? tally.types,
+    ...(measured?.typesEstimated === true ? { typesEstimated: true } : {}),
     oovTokens,
     oovRate: tally.tokens === 0 ? 0 : oovTokens / tally.tokens,
     length: summarizeLengths(tally.lengths),
@@ -138,7 +179,7 @@ export function freeze(tally: Tally, options: FreezeOptions = {}): Lexicon {
     coverage,
     truncation,
     capTie: tie,
-    seen: SeenTokens.of(tally.tokenList(), tally.types)?.toJSON() ?? null,
+    seen: (measured === undefined ? SeenTokens.of(tally.tokenList(), tally.types) : measured.seen)?.toJSON() ?? null,
   };
 
   return new Lexicon(encoding, fit, makeCanaries(tally.rules, options.snippets ?? []));

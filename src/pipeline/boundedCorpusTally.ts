@@ -1,10 +1,8 @@
 import type { TextRules } from '../rules/TextRules.js';
 import { boundedTally } from '../tally/boundedTally.js';
 import type { LabelledText } from '../tally/Tally.js';
+import type { MeasuredFit } from '../lexicon/measuredFit.js';
 import { snippetKeeper, type CorpusTally } from './tallyCorpus.js';
-
-/** Share of `--memory-limit` given to the counters; the rest is the runtime, buffers and the lexicon. */
-const COUNTER_SHARE = 0.5;
 
 /** What {@link boundedCorpusTally} needs: the lexicon's cap, min count, reserved tokens, and the limit. */
 export interface BoundedCorpusOptions {
@@ -14,19 +12,25 @@ export interface BoundedCorpusOptions {
   memoryLimitMiB: number;
 }
 
+/** A bounded count of a corpus: the tally to freeze, the fit figures it measured, canary snippets. */
+export interface BoundedCorpusTally extends CorpusTally {
+  measured: MeasuredFit;
+}
+
 /**
- * `tallyCorpus` within a memory limit: two passes over the corpus (`open` must give the same documents
- * each time), exact for every token that can make the cap (see boundedTally), canary snippets kept as
- * tallyCorpus keeps them. Counts of tokens that cannot make the cap are left out, so the fit's `types`
- * and coverage speak only of the tokens counted.
+ * `tallyCorpus` within a memory limit (see boundedTally, and memoryPlan for how the limit is spent):
+ * one or two passes over the corpus (`open` must give the same documents each time), exact for every
+ * token the lexicon keeps, with the fit's figures of the whole corpus in `measured` (pass it to
+ * freeze), canary snippets kept as tallyCorpus keeps them.
  * @example
- * const { tally, snippets } = await boundedCorpusTally(() => readCorpus('big.txt'), resolveRules(), { cap: 50000, minCount: 1, reserved: [], memoryLimitMiB: 256 });
+ * const { tally, snippets, measured } = await boundedCorpusTally(() => readCorpus('big.txt'), resolveRules(), { cap: 50000, minCount: 1, reserved: [], memoryLimitMiB: 256 });
+ * const lexicon = freeze(tally, { cap: 50000, snippets, measured });
  */
 export async function boundedCorpusTally(
   open: () => AsyncIterable<string | LabelledText>,
   rules: TextRules,
   options: BoundedCorpusOptions,
-): Promise<CorpusTally> {
+): Promise<BoundedCorpusTally> {
   const keeper = snippetKeeper();
   let pass = 0;
   const bounded = await boundedTally(
@@ -42,7 +46,7 @@ export async function boundedCorpusTally(
       })();
     },
     rules,
-    { cap: options.cap, minCount: options.minCount, reserved: options.reserved, budgetBytes: options.memoryLimitMiB * 2 ** 20 * COUNTER_SHARE },
+    { cap: options.cap, minCount: options.minCount, reserved: options.reserved, memoryLimitMiB: options.memoryLimitMiB },
   );
-  return { tally: bounded.tally, snippets: keeper.snippets };
+  return { tally: bounded.tally, snippets: keeper.snippets, measured: bounded.measured };
 }

@@ -3,6 +3,7 @@ import { canonicalJson } from '../artifact/canonicalJson.js';
 import { detached } from '../rules/detached.js';
 import { tokenize } from '../rules/tokenize.js';
 import type { TextRules } from '../rules/TextRules.js';
+import { MAP_ENTRIES_MOST, TokenMap } from './TokenMap.js';
 
 /** A text with an optional label, as corpus readers and callers hand them in. */
 export interface LabelledText {
@@ -30,15 +31,17 @@ export interface TallyCounts {
   readonly labels: ReadonlyMap<string, LabelCounts>;
 }
 
-/** What a tally knows of one token. */
-interface TokenEntry {
-  /** The token's number: its place in the order tokens were first counted, from 0. */
-  id: number;
-  count: number;
-  documents: number;
-  /** The number of the last document counted with this token in it (document frequency is counted once a document). */
-  last: number;
+/** Options of a {@link Tally}. */
+export interface TallyOptions {
+  /**
+   * Tokens one internal Map holds before the next one starts (default {@link MAP_ENTRIES_MOST}; a
+   * JavaScript Map holds at most 2^24). Tests set it low to exercise tallies of more tokens than that.
+   */
+  entriesPerMap?: number;
 }
+
+/** Room for this many tokens' figures at first; it doubles when full. */
+const FIRST_ROOM = 1024;
 
 /**
  * Counts over a corpus (encoding contract, rule 3): occurrences and document frequency per token,
@@ -57,62 +60,79 @@ export class Tally {
   readonly labels = new Map<string, LabelCounts>();
   documents = 0;
   tokens = 0;
-  // One entry per token: a single hash lookup counts an occurrence and its document.
-  readonly #entries = new Map<string, TokenEntry>();
+  // Token -> its number (the order first counted, from 0); the figures of token n are at [n] of the
+  // arrays below, so a token costs its string and a map entry, not an object of its own.
+  readonly #numbers: TokenMap<number>;
+  #count: Float64Array = new Float64Array(FIRST_ROOM);
+  #documentsOf: Float64Array = new Float64Array(FIRST_ROOM);
+  /** The number of the last document counted with token n in it (document frequency is counted once a document); 0 for none. */
+  #last: Float64Array = new Float64Array(FIRST_ROOM);
   // Snapshots handed out by `counts` and `documentFrequency`, dropped when the tally changes.
-  #counts: Map<string, number> | null = null;
-  #frequency: Map<string, number> | null = null;
+  #counts: ReadonlyMap<string, number> | null = null;
+  #frequency: ReadonlyMap<string, number> | null = null;
 
-  constructor(rules: TextRules) {
+  constructor(rules: TextRules, options: TallyOptions = {}) {
     this.rules = rules;
+    this.#numbers = new TokenMap(options.entriesPerMap);
   }
 
   /** Occurrences of `token` (0 when never counted). */
   countOf(token: string): number {
-    return this.#entries.get(token)?.count ?? 0;
+    const n = this.#numbers.get(token);
+    return n === undefined ? 0 : (this.#count[n] as number);
   }
 
   /** The number of `token`: its place in the order first counted (as {@link Tally.entries}), or -1. */
   numberOf(token: string): number {
-    return this.#entries.get(token)?.id ?? -1;
+    return this.#numbers.get(token) ?? -1;
   }
 
   /** Documents `token` occurs in (0 when never counted). */
   documentsOf(token: string): number {
-    return this.#entries.get(token)?.documents ?? 0;
+    const n = this.#numbers.get(token);
+    return n === undefined ? 0 : (this.#documentsOf[n] as number);
   }
 
   /** Every counted token with its occurrences and document frequency, in the order first counted. */
   *entries(): IterableIterator<[token: string, count: number, documents: number]> {
-    for (const [token, e] of this.#entries) yield [token, e.count, e.documents];
+    let n = 0;
+    for (const token of this.#numbers.keys()) {
+      yield [token, this.#count[n] as number, this.#documentsOf[n] as number];
+      n++;
+    }
+  }
+
+  /** Calls `visit` with every counted token and its occurrences, in the order first counted (no pair made for each). */
+  forEachCount(visit: (token: string, count: number) => void): void {
+    let n = 0;
+    for (const token of this.#numbers.keys()) visit(token, this.#count[n++] as number);
   }
 
   /** Every counted token, in the order first counted. */
   tokenList(): IterableIterator<string> {
-    return this.#entries.keys();
+    return this.#numbers.keys();
+  }
+
+  /** Occurrences of every counted token, in the order first counted (index n: token number n). */
+  countList(): Float64Array {
+    return this.#count.slice(0, this.#numbers.size);
   }
 
   /** Occurrences per token: a read-only snapshot, made once and kept until the tally changes. */
   get counts(): ReadonlyMap<string, number> {
-    if (this.#counts === null) {
-      this.#counts = new Map();
-      for (const [token, e] of this.#entries) this.#counts.set(token, e.count);
-    }
+    if (this.#counts === null) this.#counts = this.#snapshot(this.#count);
     return this.#counts;
   }
 
   /** Documents each token occurs in: a read-only snapshot, as {@link Tally.counts}. */
   get documentFrequency(): ReadonlyMap<string, number> {
-    if (this.#frequency === null) {
-      this.#frequency = new Map();
-      for (const [token, e] of this.#entries) this.#frequency.set(token, e.documents);
-    }
+    if (this.#frequency === null) this.#frequency = this.#snapshot(this.#documentsOf);
     return this.#frequency;
   }
 
   /** Distinct tokens counted. */
   get types(): number {
-    return this.#entries.size;
+    return this.#numbers.size;
   }
 
   /** Counts one document's tokens (already tokenized under `this.rules`). */
@@ -142,22 +162,26 @@ export class Tally {
     const document = this.documents;
     this.tokens += tokens.length;
     this.lengths.set(tokens.length, (this.lengths.get(tokens.length) ?? 0) + 1);
-    const entries = this.#entries;
+    const map = this.#numbers;
     for (let k = 0; k < tokens.length; k++) {
       const t = tokens[k] as string;
       if (keep !== null && !keep.has(t)) continue;
-      let e = entries.get(t);
-      if (e === undefined) {
-        e = { id: entries.size, count: 1, documents: 1, last: document };
-        entries.set(detached(t), e);
+      let n = map.get(t);
+      if (n === undefined) {
+        n = this.#newNumber(detached(t));
+        this.#count[n] = 1;
+        this.#documentsOf[n] = 1;
+        this.#last[n] = document;
       } else {
-        e.count += 1;
-        if (e.last !== document) {
-          e.last = document;
-          e.documents += 1;
+        const count = this.#count;
+        count[n] = (count[n] as number) + 1;
+        if (this.#last[n] !== document) {
+          this.#last[n] = document;
+          const documents = this.#documentsOf;
+          documents[n] = (documents[n] as number) + 1;
         }
       }
-      if (numbers !== null) numbers[k] = e.id;
+      if (numbers !== null) numbers[k] = n;
     }
     if (label !== undefined) addLabel(this.labels, label, 1, tokens.length);
     return this;
@@ -175,17 +199,39 @@ export class Tally {
 
   /** {@link Tally.addToken} without the cache reset; returns the token's number. */
   #addCounts(token: string, count: number, documents: number): number {
-    let e = this.#entries.get(token);
-    // `last` 0 matches no document counted here, so a later document still counts as a new one.
-    if (e === undefined) {
-      e = { id: this.#entries.size, count, documents, last: 0 };
-      this.#entries.set(token, e);
+    let n = this.#numbers.get(token);
+    if (n === undefined) {
+      n = this.#newNumber(token);
+      this.#count[n] = count;
+      this.#documentsOf[n] = documents;
     } else {
-      e.count += count;
-      e.documents += documents;
-      e.last = 0;
+      this.#count[n] = (this.#count[n] as number) + count;
+      this.#documentsOf[n] = (this.#documentsOf[n] as number) + documents;
     }
-    return e.id;
+    // 0 matches no document counted here, so a later document still counts as a new one.
+    this.#last[n] = 0;
+    return n;
+  }
+
+  /** Numbers a new token, making room for its figures. */
+  #newNumber(token: string): number {
+    const n = this.#numbers.size;
+    if (n === this.#count.length) {
+      const room = n * 2;
+      this.#count = grown(this.#count, room);
+      this.#documentsOf = grown(this.#documentsOf, room);
+      this.#last = grown(this.#last, room);
+    }
+    this.#numbers.add(token, n);
+    return n;
+  }
+
+  /** Token -> figure n of `figures`, for every token: a Map (a {@link TokenMap} past what one Map holds). */
+  #snapshot(figures: Float64Array): ReadonlyMap<string, number> {
+    const out = this.#numbers.size <= MAP_ENTRIES_MOST ? new Map<string, number>() : new TokenMap<number>();
+    let n = 0;
+    for (const token of this.#numbers.keys()) out.set(token, figures[n++] as number);
+    return out;
   }
 
   /** Tokenizes and counts one text (or labelled text); returns its tokens. */
@@ -229,19 +275,9 @@ export class Tally {
 
   /** The counts as flat arrays, to send to another thread (structured cloning copies arrays fast). */
   toCounts(): TallyCounts {
-    const n = this.#entries.size;
-    const types: string[] = new Array<string>(n);
-    const occurrences = new Float64Array(n);
-    const documentFrequency = new Float64Array(n);
-    let i = 0;
-    for (const [token, e] of this.#entries) {
-      types[i] = token;
-      occurrences[i] = e.count;
-      documentFrequency[i] = e.documents;
-      i++;
-    }
+    const n = this.#numbers.size;
     const { documents, tokens, lengths, labels } = this;
-    return { documents, tokens, types, occurrences, documentFrequency, lengths, labels };
+    return { documents, tokens, types: [...this.#numbers.keys()], occurrences: this.#count.slice(0, n), documentFrequency: this.#documentsOf.slice(0, n), lengths, labels };
   }
 
   /** Counts texts from a synchronous iterable. */
@@ -262,6 +298,13 @@ export class Tally {
     this.#counts = null;
     this.#frequency = null;
   }
+}
+
+/** `figures` copied into an array of `room` places. */
+function grown(figures: Float64Array, room: number): Float64Array {
+  const out = new Float64Array(room);
+  out.set(figures);
+  return out;
 }
 
 function addLabel(labels: Map<string, LabelCounts>, label: string, documents: number, tokens: number): void {

@@ -29,9 +29,14 @@ export function* tallyFileLines(file: TallyFile): Generator<string> {
   const labels = [...tally.labels].sort((a, b) => tallyFileOrder(a[0], b[0])).map(([label, c]) => [label, c.documents, c.tokens]);
   yield* entries('labels', labels, false);
   yield* entries('snippets', [...new Set(file.snippets)].sort(tallyFileOrder).slice(0, TALLY_SNIPPETS), false);
-  const counts = [...tally.entries()].sort((a, b) => tallyFileOrder(a[0], b[0]));
+  // The tokens alone are sorted (not a [token, count, documents] triple each: a tally may hold tens of
+  // millions), their figures looked up as each line is written.
+  const tokens = [...tally.tokenList()].sort(tallyFileOrder);
   yield `  "counts": [\n`;
-  for (let i = 0; i < counts.length; i++) yield `    ${JSON.stringify(counts[i])}${i < counts.length - 1 ? ',' : ''}\n`;
+  for (let i = 0; i < tokens.length; i++) {
+    const t = tokens[i] as string;
+    yield `    ${JSON.stringify([t, tally.countOf(t), tally.documentsOf(t)])}${i < tokens.length - 1 ? ',' : ''}\n`;
+  }
   yield '  ]\n}\n';
 }
 

@@ -60,8 +60,8 @@ describe('the lexlock executable', () => {
     expect(await readFile(tmp.path('e2.jsonl'), 'utf8')).toBe(await readFile(tmp.path('e1.jsonl'), 'utf8'));
   });
 
-  // --memory-limit runs the command again with the V8 heap capped (src/heapLimitFor.ts): same lexicon, same exit codes.
-  it('builds the same lexicon with --memory-limit, in a process whose heap is capped, and passes its exit code on', async () => {
+  // --memory-limit runs the command on a worker thread with the V8 heap capped (src/runCapped.ts): same lexicon, same exit codes.
+  it('builds the same lexicon with --memory-limit, on a thread whose heap is capped, and passes its exit code on', async () => {
     const plain = lexlock('build', demo, '-o', tmp.path('plain.json'), '--label', 'topic', '--cap', '500', '--quiet');
     const bounded = lexlock('build', demo, '-o', tmp.path('bounded.json'), '--label', 'topic', '--cap', '500', '--quiet', '--memory-limit', '64');
     expect([plain.status, plain.stderr, bounded.status, bounded.stderr]).toEqual([0, '', 0, '']);

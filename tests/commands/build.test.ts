@@ -2,6 +2,7 @@ import { readdir, readFile, writeFile } from 'node:fs/promises';
 import { describe, expect, it } from 'vitest';
 import { parseLexicon } from '../../src/artifact/parseLexicon.js';
 import { cli, freshFolderEachTest } from '../helpers/cli.js';
+import { writeZipfCorpus } from '../helpers/generatedCorpora.js';
 
 const tmp = freshFolderEachTest();
 
@@ -110,7 +111,7 @@ describe('lexlock build --memory-limit', () => {
   it('gives the same lexicon as an unbounded build when it can prove it', async () => {
     const demo = new URL('../../corpora-demo/ferry-messages.csv', import.meta.url).pathname;
     expect((await cli('build', demo, '-o', tmp.path('a.json'), '--cap', '500', '--label', 'topic')).code).toBe(0);
-    const bounded = await cli('build', demo, '-o', tmp.path('b.json'), '--cap', '500', '--label', 'topic', '--memory-limit', '16');
+    const bounded = await cli('build', demo, '-o', tmp.path('b.json'), '--cap', '500', '--label', 'topic', '--memory-limit', '32');
     expect(bounded.stderr).toBe('');
     const a = JSON.parse(await readFile(tmp.path('a.json'), 'utf8'));
     const b = JSON.parse(await readFile(tmp.path('b.json'), 'utf8'));
@@ -119,12 +120,65 @@ describe('lexlock build --memory-limit', () => {
     expect(b.fit.oovTokens).toBe(a.fit.oovTokens);
   });
 
-  it('refuses, naming a budget, when the limit is too small to prove the cap', async () => {
+  it('writes the fit of an unbounded build, never reports a training token as unseen, and marks an estimate', async () => {
+    // 480,000 tokens, 166,479 distinct (counted with sort -u), Zipf-like: a few common, most rare.
+    await writeZipfCorpus(tmp.path('z.txt'), 40_000, 4_000_000, 5);
+    expect((await cli('build', tmp.path('z.txt'), '-o', tmp.path('u.json'), '--cap', '50')).code).toBe(0);
+    const bounded = await cli('build', tmp.path('z.txt'), '-o', tmp.path('b.json'), '--cap', '50', '--memory-limit', '64');
+    expect([bounded.code, bounded.stderr]).toEqual([0, '']);
+    const u = parseLexicon(await readFile(tmp.path('u.json'), 'utf8'));
+    const b = parseLexicon(await readFile(tmp.path('b.json'), 'utf8'));
+    expect(b.fingerprint).toBe(u.fingerprint);
+    const uf = u.fit as NonNullable<typeof u.fit>;
+    const bf = b.fit as NonNullable<typeof b.fit>;
+    for (const member of ['cap', 'minCount', 'documents', 'tokens', 'oovTokens', 'oovRate', 'length', 'labels', 'truncation', 'capTie'] as const) {
+      expect(bf[member], member).toEqual(uf[member]);
+    }
+    if (bf.typesEstimated === true) expect(Math.abs(bf.types - uf.types) / uf.types).toBeLessThan(0.05);
+    else expect(bf.types).toBe(uf.types);
+    const shares = new Map(uf.coverage.map((c) => [c.cap, c.share]));
+    for (const c of bf.coverage) expect(c.share, `coverage at ${c.cap}`).toBe(shares.get(c.cap));
+    const audited = await cli('audit', tmp.path('z.txt'), '--lexicon', tmp.path('b.json'), '--json');
+    expect(audited.code).toBe(0);
+    const drift = JSON.parse(audited.stdout).drift;
+    expect([drift.unseenBasis, drift.unseenTokens]).toEqual(['fit', []]);
+  });
+
+  it('refuses, naming a limit that then builds, when the limit is too small to prove the cap', async () => {
     const letters = (n: number) => n.toString(26).replace(/[0-9]/g, (d) => 'qrstuvwxyz'[Number(d)]!);
     await writeFile(tmp.path('wide.txt'), Array.from({ length: 60000 }, (_, i) => `${letters(i)}x`).join(' ') + '\n');
-    const r = await cli('build', tmp.path('wide.txt'), '-o', tmp.path('lex.json'), '--cap', '50000', '--memory-limit', '16');
+    const r = await cli('build', tmp.path('wide.txt'), '-o', tmp.path('lex.json'), '--cap', '50000', '--memory-limit', '40');
     expect(r.code).toBe(1);
-    expect(r.stderr).toMatch(/^lexlock build: the memory limit holds 41,943 counters, too few to prove the top 50,000 tokens exact on this corpus: the last of them occurs once, but a token not followed may have occurred up to (once|[\d,]+ times); about [\d,]+ counters would do: try --memory-limit \d+\n$/);
+    expect(r.stderr).toMatch(
+      /^lexlock build: --memory-limit 40 holds [\d,]+ counters, too few to prove the top 50,000 tokens exact on this corpus: the last of them occurs (at least )?once, but a token not followed may have occurred up to (once|\d+ times); about 60,001 counters would do; try --memory-limit (\d+)\n$/,
+    );
+    const named = /try --memory-limit (\d+)/.exec(r.stderr)?.[1] as string;
+    const again = await cli('build', tmp.path('wide.txt'), '-o', tmp.path('lex.json'), '--cap', '50000', '--memory-limit', named);
+    expect([again.code, again.stderr]).toEqual([0, '']);
+    expect((await cli('build', tmp.path('wide.txt'), '-o', tmp.path('exact.json'), '--cap', '50000')).code).toBe(0);
+    expect(parseLexicon(await readFile(tmp.path('lex.json'), 'utf8')).fingerprint).toBe(parseLexicon(await readFile(tmp.path('exact.json'), 'utf8')).fingerprint);
+  });
+
+  it.each([
+    ['16', 'lexlock build: --memory-limit: 16 MiB is below the 32 MiB a bounded build needs at least (one document in flight, the tokenizer, the lexicon and some counters); try --memory-limit 32\n'],
+    ['lots', 'lexlock build: --memory-limit: "lots" is not a whole number of MiB; try --memory-limit 32\n'],
+    ['2000000', 'lexlock build: --memory-limit: 2000000 MiB is more than the 1048576 MiB (1 TiB) it takes; try --memory-limit 1048576\n'],
+  ])('refuses --memory-limit %s as a usage error', async (limit, message) => {
+    await writeFile(tmp.path('m.csv'), CSV);
+    const r = await cli('build', tmp.path('m.csv'), '-o', tmp.path('lex.json'), '--memory-limit', limit);
+    expect([r.code, r.stderr]).toEqual([2, message]);
+  });
+
+  it('refuses a document longer than the limit allows one, naming a limit that takes it', async () => {
+    await writeFile(tmp.path('long.txt'), `short one\n${'ferry '.repeat(200_000)}\nshort two\n`);
+    const r = await cli('build', tmp.path('long.txt'), '-o', tmp.path('lex.json'), '--memory-limit', '32', '--record-limit', '2');
+    expect(r.stderr).toBe(
+      `lexlock build: ${tmp.path('long.txt')} line 2: a document is longer than the 768 KiB --memory-limit 32 allows for one in this corpus; split it into smaller documents, or try --memory-limit 86 (documents up to 2 MiB; a smaller --record-limit asks less)\n`,
+    );
+    expect(r.code).toBe(1);
+    const named = /try --memory-limit (\d+)/.exec(r.stderr)?.[1] as string;
+    const again = await cli('build', tmp.path('long.txt'), '-o', tmp.path('lex.json'), '--memory-limit', named, '--record-limit', '2');
+    expect([again.code, again.stderr]).toEqual([0, '']);
   });
 });
 

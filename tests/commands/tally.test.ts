@@ -78,6 +78,7 @@ describe('lexlock build <file.tally>', () => {
     ['--drop', 'punctuation', 'lexlock build: --drop cannot be used with a tally: the tally fixes the rules it was counted under; leave it out, or count the parts again with lexlock tally --drop\n'],
     ['--label', 'topic', 'lexlock build: --label cannot be used with a tally: its corpus was read when it was counted; leave it out, or pass it to lexlock tally\n'],
     ['--bad-text', 'skip', 'lexlock build: --bad-text cannot be used with a tally: its corpus was read when it was counted; leave it out, or pass it to lexlock tally\n'],
+    ['--memory-limit', '64', 'lexlock build: --memory-limit cannot be used with a tally: it bounds counting a corpus, and a tally is counted already (its counts are read whole); leave it out\n'],
   ])('exits 2 on %s with a tally', async (flag, value, message) => {
     await writeFile(tmp.path('m.csv'), CSV);
     expect((await cli('tally', tmp.path('m.csv'), '-o', tmp.path('m.tally'))).code).toBe(0);

@@ -8,11 +8,20 @@ import { SpanIndex } from '../SpanIndex.js';
 export class GroupCache {
   readonly #groups = new SpanIndex();
   #pairs: (readonly string[])[] = [];
-  readonly #limit: number;
+  #limit: number;
 
   /** @param limit entries kept before the memo is emptied. */
   constructor(limit = 100_000) {
     this.#limit = limit;
+  }
+
+  /** Keeps at most `limit` entries from now on (emptied now if it holds more). */
+  resize(limit: number): void {
+    this.#limit = Math.max(1, limit);
+    if (this.#groups.size > this.#limit) {
+      this.#groups.clear();
+      this.#pairs = [];
+    }
   }
 
   /** The pairs stored for `group`, if any. */

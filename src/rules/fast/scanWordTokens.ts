@@ -9,6 +9,17 @@ import { WHITE_SPACE_TABLE } from './whiteSpaceTable.js';
 const cache = new GroupCache();
 /** Groups longer than this are not memoized: they rarely come again. */
 const CACHE_MAX_LENGTH = 64;
+/** Heap one memo entry takes at most (a group of 64 code units, its key, wink's pairs for it): measured about 550 bytes. */
+export const CHUNK_MEMO_BYTES_PER_ENTRY = 640;
+
+/**
+ * Keeps the chunk memo within `bytes` of heap from now on, for a process that must stay within a
+ * memory limit (the memo holds up to 100,000 groups, up to about 60 MiB, otherwise). Tokens never
+ * depend on it: a group not in the memo goes to wink-tokenizer.
+ */
+export function limitChunkMemo(bytes: number): void {
+  cache.resize(Math.floor(bytes / CHUNK_MEMO_BYTES_PER_ENTRY));
+}
 const AT = 0x40;
 const COLON = 0x3a;
 
