@@ -1,9 +1,9 @@
 import { detached } from '../detached.js';
-import type { TokenSpans } from '../TokenSpans.js';
+import type { PairSink, TokenSpans } from '../TokenSpans.js';
+import { cascadePairs } from './cascadePairs.js';
 import { GroupCache } from './GroupCache.js';
 import { scanLinkChunk } from './scanLinkChunk.js';
 import { scanPlainChunk } from './scanPlainChunk.js';
-import { tokenizeGroups } from './tokenizeGroups.js';
 import { WHITE_SPACE_TABLE } from './whiteSpaceTable.js';
 
 const cache = new GroupCache();
@@ -31,14 +31,14 @@ function startsTimeSuffix(code: number): boolean {
  * starts with a, p or h. Plain chunks (see {@link scanPlainChunk}) become spans directly; other groups
  * are taken from a memo of wink's pairs when met before, else as spans when they are URLs or e-mail
  * addresses around plain parts (see {@link scanLinkChunk}, which makes strings to match them), else go
- * to wink in one call per text. A text whose groups are all plain or memoized allocates nothing.
+ * through wink's rules one by one ({@link cascadePairs}, linear in the group's length). A text whose
+ * groups are all plain or memoized allocates nothing. Every step is linear in the text's length, so no
+ * text, however hostile, costs more than a constant per code unit.
  * @example scanWordTokens(out) // out.text 'Depart 10 am, ok?' -> 'Depart', '10 am', ',', 'ok', '?'
  */
 export function scanWordTokens(out: TokenSpans): void {
   const text = out.text;
   const folded = out.folded;
-  // The groups left to wink, in order; each holds its place in `out` until wink has tokenized them all.
-  let slowGroups: string[] | null = null;
   const n = text.length;
   let i = 0;
   while (i < n) {
@@ -70,8 +70,9 @@ export function scanWordTokens(out: TokenSpans): void {
     }
     i = end;
     if (plain) continue;
+    const short = end - groupStart <= CACHE_MAX_LENGTH;
     // A group met before (wink's own pairs for it) is taken from the memo without making a string.
-    const known = end - groupStart <= CACHE_MAX_LENGTH ? cache.find(text, groupStart, end, folded) : undefined;
+    const known = short ? cache.find(text, groupStart, end, folded) : undefined;
     if (known !== undefined) {
       for (let p = 0; p < known.length; p += 2) out.pair(known[p] as string, known[p + 1] as string);
       continue;
@@ -82,16 +83,21 @@ export function scanWordTokens(out: TokenSpans): void {
       if (scanLinkChunk(text, groupStart, end, out)) continue;
       out.count = saved;
     }
-    const group = text.slice(groupStart, end);
-    slowGroups ??= [];
-    slowGroups.push(folded ? group.toLowerCase() : group);
-    out.holdGroup(slowGroups.length - 1);
+    const cased = text.slice(groupStart, end);
+    const group = folded ? cased.toLowerCase() : cased;
+    if (short) memoized(group, out);
+    else cascadePairs(group, out);
   }
-  if (slowGroups === null) return;
-  const results = tokenizeGroups(slowGroups);
-  for (let g = 0; g < slowGroups.length; g++) {
-    const group = slowGroups[g] as string;
-    if (group.length <= CACHE_MAX_LENGTH) cache.set(detached(group), (results[g] as string[]).map(detached));
-  }
-  out.fillGroups(results);
+}
+
+/** Collects one short group's pairs for the memo (reused: groups are handled one at a time). */
+const collected: string[] = [];
+const collector: PairSink = { pair: (value, tag) => void collected.push(value, tag) };
+
+/** A short group's pairs from wink's rules, kept in the memo and reported to `out`. */
+function memoized(group: string, out: TokenSpans): void {
+  collected.length = 0;
+  cascadePairs(group, collector);
+  cache.set(detached(group), collected.map(detached));
+  for (let p = 0; p < collected.length; p += 2) out.pair(collected[p] as string, collected[p + 1] as string);
 }
