@@ -1,6 +1,7 @@
 import type { TextRules } from '../rules/TextRules.js';
 import { boundedTally } from '../tally/boundedTally.js';
 import type { LabelledText } from '../tally/Tally.js';
+import { withTurns } from './loopTurns.js';
 import { snippetKeeper, type CorpusTally } from './tallyCorpus.js';
 
 /** Share of `--memory-limit` given to the counters; the rest is the runtime, buffers and the lexicon. */
@@ -31,7 +32,8 @@ export async function boundedCorpusTally(
   let pass = 0;
   const bounded = await boundedTally(
     () => {
-      const documents = open();
+      // Each pass gives the event loop a turn every 100 ms or so, a very long document included.
+      const documents = withTurns(open(), { rules, strings: true });
       pass += 1;
       if (pass > 1) return documents;
       return (async function* () {

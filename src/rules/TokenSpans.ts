@@ -122,6 +122,27 @@ export class TokenSpans implements SpanSink, PairSink {
     this.strings[k] = value;
   }
 
+  /**
+   * Takes over the tokens of `other` (a scan of the same text under the same rules, made ahead),
+   * leaving `other` with this one's old buffers. Made strings of when this one makes strings.
+   */
+  takeFrom(other: TokenSpans): void {
+    [this.starts, other.starts] = [other.starts, this.starts];
+    [this.ends, other.ends] = [other.ends, this.ends];
+    [this.strings, other.strings] = [other.strings, this.strings];
+    this.text = other.text;
+    this.folded = other.folded;
+    this.count = other.count;
+    other.count = 0;
+    other.text = '';
+    if (!this.#makeStrings) return;
+    for (let k = 0; k < this.count; k++) {
+      if ((this.starts[k] as number) < 0) continue;
+      this.strings[k] = this.tokenAt(k);
+      this.starts[k] = -1;
+    }
+  }
+
   /** Token `k` as a string. */
   tokenAt(k: number): string {
     const start = this.starts[k] as number;

@@ -1,5 +1,6 @@
 import { findEmail } from './findEmail.js';
-import { finderOf, type Finder, type Found } from './Finder.js';
+import { finderOf, windowFinderOf, type Finder, type Found } from './Finder.js';
+import { findNumberDV, findNumberL1 } from './findNumber.js';
 import { findOrdinal } from './findOrdinal.js';
 import { scanWork } from './scanWork.js';
 import { splitWord } from './splitWord.js';
@@ -15,7 +16,8 @@ interface Rule {
 /**
  * wink-tokenizer 5.3.0's rules with its default settings, in its order (`rgxsMaster` without the
  * quoted phrase, which its default configuration leaves out). Each finds what its pattern finds; the
- * e-mail and ordinal patterns, quadratic when run as they are, are found by linear scanners.
+ * e-mail and ordinal patterns, quadratic when run as they are, and the number patterns, which V8
+ * gives up on for a run of a few million digits, are found by linear scanners of their own.
  */
 const RULES: readonly Rule[] = [
   { find: finderOf(P.url), tag: 'url' },
@@ -23,12 +25,12 @@ const RULES: readonly Rule[] = [
   { find: finderOf(P.mention), tag: 'mention' },
   { find: finderOf(P.hashtagL1), tag: 'hashtag' },
   { find: finderOf(P.hashtagDV), tag: 'hashtag' },
-  { find: finderOf(P.emoji), tag: 'emoji' },
-  { find: finderOf(P.emoticon), tag: 'emoticon' },
-  { find: finderOf(P.time), tag: 'time' },
+  { find: windowFinderOf(P.emoji), tag: 'emoji' },
+  { find: windowFinderOf(P.emoticon), tag: 'emoticon' },
+  { find: windowFinderOf(P.time), tag: 'time' },
   { find: findOrdinal, tag: 'ordinal' },
-  { find: finderOf(P.numberL1), tag: 'number' },
-  { find: finderOf(P.numberDV), tag: 'number' },
+  { find: findNumberL1, tag: 'number' },
+  { find: findNumberDV, tag: 'number' },
   { find: finderOf(P.currency), tag: 'currency' },
   { find: finderOf(P.wordL1), tag: 'word' },
   { find: finderOf(P.wordDV), tag: 'word' },
@@ -37,55 +39,138 @@ const RULES: readonly Rule[] = [
 ];
 
 const SPACES = new RegExp(P.spaces);
-/** One per rule: a rule's search is done with before a later rule's starts on a part of it. */
-const FOUND: readonly Found[] = RULES.map(() => ({ start: 0, end: 0 }));
+/** Where the rule being searched matched: read at once, before any other search. */
+const FOUND: Found = { start: 0, end: 0 };
+/** Frames at most: one a rule, and one for what is left after the last. */
+const DEPTH = RULES.length + 1;
+/** How far one search looks when the work comes in steps (see Finder's `limit`). */
+const WINDOW = 1 << 16;
 
-/**
- * What is left between matches of rule `k`: trimmed, and when anything is left, given to the next rule
- * (as wink trims each part it leaves and then the part again before its next rule).
- */
-function rest(part: string, k: number, sink: PairSink): void {
-  const trimmed = part.trim();
-  if (trimmed !== '') applyRule(trimmed, k, sink);
+/** A match of rule `k` in `text`, reported as wink reports it (a word through {@link splitWord}). */
+function report(text: string, start: number, end: number, k: number, sink: PairSink): void {
+  const value = text.slice(start, end);
+  const tag = (RULES[k] as Rule).tag;
+  if (tag === 'word') splitWord(value, sink);
+  else sink.pair(value, tag);
 }
 
 /**
- * wink's step for rule `k` on `text`: the rule's matches become tokens of its tag (a word with an
- * apostrophe goes through {@link splitWord}), and the text before, between and after them goes to the
- * rules after it, in order. After the last rule the text left is split at white space into `alien`
- * tokens.
+ * wink-tokenizer's tokens of one text with its default settings, reported to a {@link PairSink} as
+ * value/tag pairs (encoding contract, rule 2): the same pairs as `wink.tokenize(text)`, in time linear
+ * in the text's length, and in steps of bounded work, so a caller can pause between them (a text of
+ * many megabytes without white space is one group). wink's own way, kept step for step: each rule in
+ * turn finds its matches in what the rules before it left, the parts before, between and after them,
+ * trimmed, go to the next rule in order, and what is left after the last rule is split at white space
+ * into `alien` tokens. wink does this by recursion; here the recursion is a stack of frames (a part,
+ * its rule, where its search is, and the match waiting for the part before it), at most one a rule
+ * deep. Its patterns are wink's (WINK_PATTERNS), but those that backtrack without bound (e-mail,
+ * ordinal, possessive) or keep a saved state a character (number; e-mail again) are replaced by
+ * scanners that find the same matches in linear time and no stack (findEmail, findOrdinal,
+ * findNumberL1/DV, splitWord); tests/rules/fast/cascadePairs.test.ts proves the pairs equal to wink's.
  */
-function applyRule(text: string, k: number, sink: PairSink): void {
-  const rule = RULES[k];
-  if (rule === undefined) {
-    scanWork.units += text.length;
-    for (const piece of text.split(SPACES)) sink.pair(piece.trim(), 'alien');
-    return;
+export class GroupCascade {
+  readonly #texts: string[] = new Array<string>(DEPTH).fill('');
+  readonly #rules = new Int32Array(DEPTH);
+  readonly #at = new Int32Array(DEPTH);
+  /** Where a frame's search goes on: no match of its rule starts between `#at` and here. */
+  readonly #searchFrom = new Int32Array(DEPTH);
+  /** The match of a frame's rule that waits while the part before it is tokenized (end -1: none). */
+  readonly #waitingStart = new Int32Array(DEPTH);
+  readonly #waitingEnd = new Int32Array(DEPTH);
+  #depth = 0;
+  #sink: PairSink | null = null;
+
+  /** Starts on `text` (trimmed first, as wink trims it), reporting to `sink`. */
+  begin(text: string, sink: PairSink): void {
+    this.#sink = sink;
+    this.#depth = 0;
+    this.#push(text.trim(), 0);
   }
-  const found = FOUND[k] as Found;
-  let at = 0;
-  while (rule.find(text, at, found)) {
-    const { start, end } = found;
-    if (start > at) rest(text.slice(at, start), k + 1, sink);
-    const value = text.slice(start, end);
-    if (rule.tag === 'word') splitWord(value, sink);
-    else sink.pair(value, rule.tag);
-    at = end;
+
+  /**
+   * Goes on for about `budget` steps of {@link scanWork} (Infinity: to the end); true once every token
+   * has been reported.
+   */
+  step(budget: number): boolean {
+    const sink = this.#sink as PairSink;
+    const until = scanWork.units + budget;
+    while (this.#depth > 0) {
+      if (scanWork.units >= until) return false;
+      const d = this.#depth - 1;
+      const text = this.#texts[d] as string;
+      const k = this.#rules[d] as number;
+      const waitingEnd = this.#waitingEnd[d] as number;
+      if (waitingEnd >= 0) {
+        // The part before this frame's match is done: the match comes next.
+        report(text, this.#waitingStart[d] as number, waitingEnd, k, sink);
+        this.#at[d] = waitingEnd;
+        this.#searchFrom[d] = waitingEnd;
+        this.#waitingEnd[d] = -1;
+      }
+      const rule = RULES[k];
+      if (rule === undefined) {
+        scanWork.units += text.length;
+        this.#pop(d);
+        for (const piece of text.split(SPACES)) sink.pair(piece.trim(), 'alien');
+        continue;
+      }
+      const at = this.#at[d] as number;
+      const from = this.#searchFrom[d] as number;
+      const limit = budget === Number.POSITIVE_INFINITY ? text.length : Math.min(text.length, from + WINDOW);
+      if (rule.find(text, from, FOUND, limit)) {
+        const { start, end } = FOUND;
+        const before = start > at ? text.slice(at, start).trim() : '';
+        if (before === '') {
+          report(text, start, end, k, sink);
+          this.#at[d] = end;
+          this.#searchFrom[d] = end;
+        } else {
+          this.#waitingStart[d] = start;
+          this.#waitingEnd[d] = end;
+          this.#push(before, k + 1);
+        }
+        continue;
+      }
+      if (FOUND.start < text.length) {
+        // Not searched to the end yet (a window): go on from there at the next turn of the loop.
+        this.#searchFrom[d] = FOUND.start;
+        continue;
+      }
+      // No match left: what follows the last one takes this frame's place, with the next rule.
+      this.#pop(d);
+      if (at < text.length) this.#push((at === 0 ? text : text.slice(at)).trim(), k + 1);
+    }
+    this.#sink = null;
+    return true;
   }
-  if (at < text.length) rest(at === 0 ? text : text.slice(at), k + 1, sink);
+
+  /** Ends frame `d`, the top one, letting go of its text. */
+  #pop(d: number): void {
+    this.#texts[d] = '';
+    this.#depth = d;
+  }
+
+  /** A frame for `text` under rule `k`, when anything is left of it. */
+  #push(text: string, k: number): void {
+    if (text === '') return;
+    const d = this.#depth;
+    this.#texts[d] = text;
+    this.#rules[d] = k;
+    this.#at[d] = 0;
+    this.#searchFrom[d] = 0;
+    this.#waitingEnd[d] = -1;
+    this.#depth = d + 1;
+  }
 }
 
+const shared = new GroupCascade();
+
 /**
- * wink-tokenizer's tokens of `text` with its default settings, reported to `sink` as value/tag pairs
- * (encoding contract, rule 2): the same pairs as `wink.tokenize(text)`, in time linear in the text's
- * length. wink's own way, kept here step for step: each rule in turn finds its matches in what the
- * rules before it left, and the parts between matches, trimmed, go on to the next rule. Its patterns
- * are the same (WINK_PATTERNS), but the three that backtrack without bound (e-mail, ordinal,
- * possessive) are replaced by scanners that find the same matches in linear time (findEmail,
- * findOrdinal, splitWord); tests/rules/fast/cascadePairs.test.ts proves the pairs equal to wink's.
+ * wink-tokenizer's tokens of `text` with its default settings, reported to `sink` as value/tag pairs,
+ * all at once (see {@link GroupCascade}, which it runs to the end).
  * @example cascadePairs("can't@", sink) // sink gets ('ca', 'word'), ("n't", 'word'), ('@', 'symbol')
  */
 export function cascadePairs(text: string, sink: PairSink): void {
-  const trimmed = text.trim();
-  if (trimmed !== '') applyRule(trimmed, 0, sink);
+  shared.begin(text, sink);
+  shared.step(Number.POSITIVE_INFINITY);
 }

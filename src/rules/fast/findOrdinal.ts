@@ -91,5 +91,6 @@ export function findOrdinal(text: string, from: number, found: Found): boolean {
     }
   }
   scanWork.units += s - from;
+  found.start = n;
   return false;
 }

@@ -22,7 +22,7 @@ function splitBy(find: Finder, type: number, rest: Rest): Rest {
     const part = from === 0 && to === text.length ? text : text.slice(from, to);
     const base = shift + from;
     let at = 0;
-    while (find(part, at, found)) {
+    while (find(part, at, found, part.length)) {
       const { start, end } = found;
       if (start > at && !rest(part, at, start, out, base)) return false;
       at = end;

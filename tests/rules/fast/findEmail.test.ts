@@ -2,7 +2,7 @@
 // wink's rgxEmail): the same matches, in the same places, on every text below.
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { findEmail } from '../../../src/rules/fast/findEmail.js';
+import { DOMAIN, domainEnd, findEmail } from '../../../src/rules/fast/findEmail.js';
 import type { Found } from '../../../src/rules/fast/Finder.js';
 import { WINK_PATTERNS } from '../../../src/rules/fast/winkPatterns.js';
 import { matchesOf, patternMatches } from './matches.js';
@@ -48,6 +48,27 @@ describe('findEmail', () => {
       }),
       { numRuns: 3000 },
     );
+  });
+
+  it('matches the part after the @ as its pattern does (domainEnd against DOMAIN), from any start', () => {
+    const domain = fc.array(fc.constantFrom('a', 'Z', '0', '7', '.', '-', '..', '--', '-.', '.-', '.a', '.1', '@', '_', ' '), { maxLength: 30 }).map((p) => p.join(''));
+    fc.assert(
+      fc.property(domain, fc.nat(), (t, n) => {
+        const at = t.length === 0 ? 0 : n % t.length;
+        DOMAIN.lastIndex = at;
+        const m = DOMAIN.exec(t);
+        expect(domainEnd(t, at)).toBe(m === null ? -1 : at + m[0].length);
+      }),
+      { numRuns: 5000 },
+    );
+  });
+
+  it('takes an address whose domain runs for 16 million characters, where V8 gives up running the pattern', () => {
+    const host = 'b'.repeat(16 * 1024 * 1024);
+    const text = `x a@${host}.co y@${host}`;
+    DOMAIN.lastIndex = 4;
+    expect(() => DOMAIN.exec(text)).toThrow(RangeError);
+    expect(matchesOf(findEmail, text)).toEqual([[2, 4 + host.length + 3]]);
   });
 
   it('has local-part classes that no code unit from 128 up is in (so its table of 128 is whole)', () => {
