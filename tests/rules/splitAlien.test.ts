@@ -4,6 +4,7 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { ALIEN_SPLIT, splitAlien } from '../../src/rules/splitAlien.js';
+import { orRangeError } from './fast/matches.js';
 
 const PARTS = ['П', 'р', 'ы', 'é', 'e\u0301', '\u0301', '東', 'へ', 'フ', 'ー', '서', '울', '१', '٣', 'a', '1', '→', '!', ' ', '\u00A0', '\u3000', '😀', '𝒜', '𠀀', '\uD800', '\uDC00', '\u200D', '\uFE0F', '_', '\uFEFF', 'ǅ', 'ª'];
 const alien = fc.array(fc.oneof(fc.constantFrom(...PARTS), fc.string({ unit: 'binary', maxLength: 3 })), { maxLength: 30 }).map((p) => p.join(''));
@@ -18,9 +19,12 @@ describe('splitAlien', () => {
     );
   });
 
-  it('splits a run of 4 million Cyrillic letters, on which V8 gives up running the expression', () => {
+  it('splits a run of 4 million Cyrillic letters, on which V8 (Node 20) gives up running the expression', () => {
     const run = 'ы'.repeat(4 * 1024 * 1024);
-    expect(() => [...run.matchAll(ALIEN_SPLIT)]).toThrow(RangeError);
-    expect(splitAlien(`${run}東${run}`, []).map((p) => p.length)).toEqual([run.length, 1, run.length]);
+    const pieces = splitAlien(`${run}東${run}`, []);
+    expect(pieces.map((p) => p.length)).toEqual([run.length, 1, run.length]);
+    // Where the engine can run the expression, it agrees.
+    const viaPattern = orRangeError(() => [...`${run}東${run}`.matchAll(ALIEN_SPLIT)].map((m) => m[0].length));
+    if (viaPattern !== 'RangeError') expect(viaPattern).toEqual([run.length, 1, run.length]);
   });
 });

@@ -5,7 +5,7 @@ import { describe, expect, it } from 'vitest';
 import { DOMAIN, domainEnd, findEmail } from '../../../src/rules/fast/findEmail.js';
 import type { Found } from '../../../src/rules/fast/Finder.js';
 import { WINK_PATTERNS } from '../../../src/rules/fast/winkPatterns.js';
-import { matchesOf, patternMatches } from './matches.js';
+import { matchesOf, orRangeError, patternMatches } from './matches.js';
 
 const PARTS = ['a', 'Z', 'b', '_', '0', '9', '.', '..', '@', '-', '`', "'", '#', '!', '~', '{', '|', '+', '=', '?', '^', ':', ',', ' ', 'x.io', '.co', 'é', 'ſ', 'K', 'ы', '\u00A0'];
 const text = fc.array(fc.constantFrom(...PARTS), { maxLength: 40 }).map((p) => p.join(''));
@@ -63,12 +63,16 @@ describe('findEmail', () => {
     );
   });
 
-  it('takes an address whose domain runs for 16 million characters, where V8 gives up running the pattern', () => {
+  it('takes an address whose domain runs for 16 million characters, where V8 (Node 20) gives up running the pattern', () => {
     const host = 'b'.repeat(16 * 1024 * 1024);
     const text = `x a@${host}.co y@${host}`;
-    DOMAIN.lastIndex = 4;
-    expect(() => DOMAIN.exec(text)).toThrow(RangeError);
     expect(matchesOf(findEmail, text)).toEqual([[2, 4 + host.length + 3]]);
+    // Where the engine can run the pattern, it agrees.
+    const viaPattern = orRangeError(() => {
+      DOMAIN.lastIndex = 4;
+      return DOMAIN.exec(text)?.[0].length;
+    });
+    if (viaPattern !== 'RangeError') expect(viaPattern).toBe(host.length + 3);
   });
 
   it('has local-part classes that no code unit from 128 up is in (so its table of 128 is whole)', () => {

@@ -5,7 +5,7 @@ import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { findNumberDV, findNumberL1 } from '../../../src/rules/fast/findNumber.js';
 import { WINK_PATTERNS } from '../../../src/rules/fast/winkPatterns.js';
-import { matchesOf, patternMatches } from './matches.js';
+import { matchesOf, orRangeError, patternMatches } from './matches.js';
 
 const L1 = ['0', '1', '9', '12', '.', ',', '-', '/', '//', '..', 'a', ' ', ':'];
 const DV = ['०', '१', '९', '.', ',', '-', '/', 'a', '1', ' '];
@@ -33,10 +33,13 @@ describe('findNumberL1 and findNumberDV', () => {
     );
   });
 
-  it('take a run of 16 million digits, on which V8 gives up running the pattern', () => {
+  it('take a run of 16 million digits, on which V8 (Node 20) gives up running the pattern', () => {
     const digits = '1'.repeat(16 * 1024 * 1024);
-    expect(() => patternMatches(WINK_PATTERNS.numberL1, digits)).toThrow(RangeError);
-    expect(matchesOf(findNumberL1, `${digits}/2 x`)).toEqual([[0, digits.length + 2]]);
+    const text = `${digits}/2 x`;
+    expect(matchesOf(findNumberL1, text)).toEqual([[0, digits.length + 2]]);
     expect(matchesOf(findNumberDV, `${'०'.repeat(1 << 24)}.१`)).toEqual([[0, (1 << 24) + 2]]);
+    // Where the engine can run the pattern, it agrees.
+    const viaPattern = orRangeError(() => patternMatches(WINK_PATTERNS.numberL1, text));
+    if (viaPattern !== 'RangeError') expect(viaPattern).toEqual([[0, digits.length + 2]]);
   });
 });

@@ -26,3 +26,16 @@ export function matchesOf(find: Finder, text: string, window = Number.POSITIVE_I
 export function patternMatches(pattern: RegExp, text: string): [number, number][] {
   return [...text.matchAll(pattern)].map((m) => [m.index, m.index + m[0].length]);
 }
+
+/**
+ * What `f` gives, or 'RangeError' when the engine gives up ("Maximum call stack size exceeded": V8 on
+ * Node 20 keeps a saved state a character for some patterns and stops at a few million).
+ */
+export function orRangeError<T>(f: () => T): T | 'RangeError' {
+  try {
+    return f();
+  } catch (e) {
+    if (e instanceof RangeError) return 'RangeError';
+    throw e;
+  }
+}
