@@ -7,10 +7,39 @@ import { splitWord } from './splitWord.js';
 import { WINK_PATTERNS as P } from './winkPatterns.js';
 import type { PairSink } from '../TokenSpans.js';
 
-/** One of wink-tokenizer's rules: how its matches are found, and the tag they get. */
+/** One of wink-tokenizer's rules: how its matches are found, the tag they get, and what a match needs. */
 interface Rule {
   find: Finder;
   tag: string;
+  /** Characters of which a match holds at least one (see {@link kindsOf}); 0: nothing to check. */
+  needs: number;
+}
+
+// Kinds of characters some rules cannot match without (a match of the rule holds at least one).
+const AT = 1;
+const HASH = 2;
+const COLON = 4;
+const EMOTICON_START = 8;
+const DIGIT = 16;
+const NON_ASCII = 32;
+const DOLLAR = 64;
+const STAR = 128;
+
+/** The kinds of characters in `text` (see {@link Rule.needs}). */
+function kindsOf(text: string): number {
+  let kinds = 0;
+  for (let i = 0; i < text.length; i++) {
+    const c = text.charCodeAt(i);
+    if (c >= 0x80) kinds |= NON_ASCII;
+    else if (c >= 0x30 && c <= 0x39) kinds |= DIGIT;
+    else if (c === 0x40) kinds |= AT;
+    else if (c === 0x23) kinds |= HASH;
+    else if (c === 0x3a) kinds |= COLON | EMOTICON_START;
+    else if (c === 0x3b || c === 0x3c) kinds |= EMOTICON_START;
+    else if (c === 0x24) kinds |= DOLLAR;
+    else if (c === 0x2a) kinds |= STAR;
+  }
+  return kinds;
 }
 
 /**
@@ -20,22 +49,23 @@ interface Rule {
  * gives up on for a run of a few million digits, are found by linear scanners of their own.
  */
 const RULES: readonly Rule[] = [
-  { find: finderOf(P.url), tag: 'url' },
-  { find: findEmail, tag: 'email' },
-  { find: finderOf(P.mention), tag: 'mention' },
-  { find: finderOf(P.hashtagL1), tag: 'hashtag' },
-  { find: finderOf(P.hashtagDV), tag: 'hashtag' },
-  { find: windowFinderOf(P.emoji), tag: 'emoji' },
-  { find: windowFinderOf(P.emoticon), tag: 'emoticon' },
-  { find: windowFinderOf(P.time), tag: 'time' },
-  { find: findOrdinal, tag: 'ordinal' },
-  { find: findNumberL1, tag: 'number' },
-  { find: findNumberDV, tag: 'number' },
-  { find: finderOf(P.currency), tag: 'currency' },
-  { find: finderOf(P.wordL1), tag: 'word' },
-  { find: finderOf(P.wordDV), tag: 'word' },
-  { find: finderOf(P.punctuation), tag: 'punctuation' },
-  { find: finderOf(P.symbol), tag: 'symbol' },
+  { find: finderOf(P.url), tag: 'url', needs: COLON },
+  { find: findEmail, tag: 'email', needs: AT },
+  { find: finderOf(P.mention), tag: 'mention', needs: AT },
+  { find: finderOf(P.hashtagL1), tag: 'hashtag', needs: HASH },
+  { find: finderOf(P.hashtagDV), tag: 'hashtag', needs: HASH },
+  // Its only ASCII characters are # * and digits, as keycap bases (tests/rules/fast/winkPatterns.test.ts).
+  { find: windowFinderOf(P.emoji), tag: 'emoji', needs: NON_ASCII | HASH | STAR | DIGIT },
+  { find: windowFinderOf(P.emoticon), tag: 'emoticon', needs: EMOTICON_START },
+  { find: windowFinderOf(P.time), tag: 'time', needs: DIGIT },
+  { find: findOrdinal, tag: 'ordinal', needs: DIGIT },
+  { find: findNumberL1, tag: 'number', needs: DIGIT },
+  { find: findNumberDV, tag: 'number', needs: NON_ASCII },
+  { find: finderOf(P.currency), tag: 'currency', needs: DOLLAR | NON_ASCII },
+  { find: finderOf(P.wordL1), tag: 'word', needs: 0 },
+  { find: finderOf(P.wordDV), tag: 'word', needs: NON_ASCII },
+  { find: finderOf(P.punctuation), tag: 'punctuation', needs: 0 },
+  { find: finderOf(P.symbol), tag: 'symbol', needs: 0 },
 ];
 
 const SPACES = new RegExp(P.spaces);
@@ -79,12 +109,16 @@ export class GroupCascade {
   readonly #waitingEnd = new Int32Array(DEPTH);
   #depth = 0;
   #sink: PairSink | null = null;
+  /** The kinds of characters in the whole text: a rule that needs none of them is skipped. */
+  #kinds = 0;
 
   /** Starts on `text` (trimmed first, as wink trims it), reporting to `sink`. */
   begin(text: string, sink: PairSink): void {
+    const trimmed = text.trim();
     this.#sink = sink;
     this.#depth = 0;
-    this.#push(text.trim(), 0);
+    this.#kinds = kindsOf(trimmed);
+    this.#push(trimmed, 0);
   }
 
   /**
@@ -115,26 +149,30 @@ export class GroupCascade {
         continue;
       }
       const at = this.#at[d] as number;
-      const from = this.#searchFrom[d] as number;
-      const limit = budget === Number.POSITIVE_INFINITY ? text.length : Math.min(text.length, from + WINDOW);
-      if (rule.find(text, from, FOUND, limit)) {
-        const { start, end } = FOUND;
-        const before = start > at ? text.slice(at, start).trim() : '';
-        if (before === '') {
-          report(text, start, end, k, sink);
-          this.#at[d] = end;
-          this.#searchFrom[d] = end;
-        } else {
-          this.#waitingStart[d] = start;
-          this.#waitingEnd[d] = end;
-          this.#push(before, k + 1);
+      // Every part is a part of the text: a rule none of whose characters it has cannot match there.
+      const possible = rule.needs === 0 || (this.#kinds & rule.needs) !== 0;
+      if (possible) {
+        const from = this.#searchFrom[d] as number;
+        const limit = budget === Number.POSITIVE_INFINITY ? text.length : Math.min(text.length, from + WINDOW);
+        if (rule.find(text, from, FOUND, limit)) {
+          const { start, end } = FOUND;
+          const before = start > at ? text.slice(at, start).trim() : '';
+          if (before === '') {
+            report(text, start, end, k, sink);
+            this.#at[d] = end;
+            this.#searchFrom[d] = end;
+          } else {
+            this.#waitingStart[d] = start;
+            this.#waitingEnd[d] = end;
+            this.#push(before, k + 1);
+          }
+          continue;
         }
-        continue;
-      }
-      if (FOUND.start < text.length) {
-        // Not searched to the end yet (a window): go on from there at the next turn of the loop.
-        this.#searchFrom[d] = FOUND.start;
-        continue;
+        if (FOUND.start < text.length) {
+          // Not searched to the end yet (a window): go on from there at the next turn of the loop.
+          this.#searchFrom[d] = FOUND.start;
+          continue;
+        }
       }
       // No match left: what follows the last one takes this frame's place, with the next rule.
       this.#pop(d);

@@ -74,6 +74,14 @@ describe('WINK_PATTERNS', () => {
     }
   });
 
+  it('has no ASCII characters in the emoji pattern but syntax and the class [#*0-9]: a match without those holds a non-ASCII one', () => {
+    // cascadePairs skips the emoji rule on a text with none of them (its `needs`).
+    const atoms = WINK_PATTERNS.emoji.source.replace(/\\u[0-9A-Fa-f]{4}|\\x[0-9A-Fa-f]{2}/g, '');
+    expect([...new Set([...atoms].filter((c) => c.charCodeAt(0) < 0x80))].sort().join('')).toBe('#()*-09:?[\\]|');
+    expect(WINK_PATTERNS.emoji.source.match(/[#*]/g)).toEqual(['#', '*', '#', '*']);
+    expect(WINK_PATTERNS.emoji.source.match(/\[#\\\*0-9/g)).toHaveLength(2);
+  });
+
   it('has the e-mail pattern end in the part findEmail matches after the @', () => {
     expect(WINK_PATTERNS.email.source.endsWith(`@${DOMAIN.source}`)).toBe(true);
     expect(DOMAIN.flags).toBe('iy');
