@@ -71,7 +71,9 @@ export class WordScan {
     const text = out.text;
     const folded = out.folded;
     const n = text.length;
-    const work = scanWork.units;
+    // All at once (Infinity), the budget is never looked at: the plain path reads no counter at all.
+    const stepped = budget !== Number.POSITIVE_INFINITY;
+    const work = stepped ? scanWork.units : 0;
     let i = this.#at;
     const from = i;
     if (this.#cascading) {
@@ -79,7 +81,7 @@ export class WordScan {
       this.#cascading = false;
     }
     while (i < n) {
-      if (i - from + (scanWork.units - work) >= budget) {
+      if (stepped && i - from + (scanWork.units - work) >= budget) {
         this.#at = i;
         return false;
       }
@@ -89,11 +91,11 @@ export class WordScan {
       const saved = out.count;
       // When the work comes in steps, a very long chunk goes to the cascade, which can stop inside it,
       // rather than to the plain and link scanners, which cannot (the same tokens either way).
-      const stepped = budget !== Number.POSITIVE_INFINITY && chunkLongerThan(text, i, LONG_CHUNK);
-      let end = stepped ? i : scanPlainChunk(text, i, out);
-      let plain = !stepped && (end === n || WHITE_SPACE_TABLE[text.charCodeAt(end)] === 1);
+      const long = stepped && chunkLongerThan(text, i, LONG_CHUNK);
+      let end = long ? i : scanPlainChunk(text, i, out);
+      let plain = !long && (end === n || WHITE_SPACE_TABLE[text.charCodeAt(end)] === 1);
       if (!plain) out.count = saved;
-      const stop = stepped ? -1 : end;
+      const stop = long ? -1 : end;
       let joined = false;
       for (;;) {
         while (end < n && WHITE_SPACE_TABLE[text.charCodeAt(end)] !== 1) end++;
@@ -134,7 +136,7 @@ export class WordScan {
         continue;
       }
       this.#cascade.begin(group, out);
-      if (!this.#cascade.step(Math.max(0, budget - (i - from) - (scanWork.units - work)))) {
+      if (!this.#cascade.step(stepped ? Math.max(0, budget - (i - from) - (scanWork.units - work)) : budget)) {
         this.#cascading = true;
         this.#at = i;
         return false;
