@@ -6,6 +6,7 @@ import type { LabelledText } from '../tally/Tally.js';
 import { IN_FLIGHT_PER_THREAD, batchesOf, inOrder } from '../workers/batches.js';
 import type { WorkerReply } from '../workers/messages.js';
 import { WorkerPool } from '../workers/WorkerPool.js';
+import { withTurns } from './loopTurns.js';
 
 /**
  * `auditCorpus` on worker threads: each thread counts batches with the same AuditCounts, the counts
@@ -18,7 +19,8 @@ export async function auditOnThreads(
   options: AuditOptions & { threads?: number } = {},
 ): Promise<CoverageReport> {
   const threads = options.threads ?? 1;
-  if (threads <= 1) return auditCorpus(documents, lexicon, options);
+  // One thread: the event loop still gets a turn every 100 ms or so, a very long document included.
+  if (threads <= 1) return auditCorpus(withTurns(documents, { rules: lexicon.rules, strings: true }), lexicon, options);
   const shape = options.shape === undefined ? lexicon.shape : options.shape;
   const length = shape === null ? null : shape.length;
   const counts = new AuditCounts(lexicon, length);

@@ -2,6 +2,7 @@ import type { TextRules } from '../rules/TextRules.js';
 import { boundedTally } from '../tally/boundedTally.js';
 import type { LabelledText } from '../tally/Tally.js';
 import type { MeasuredFit } from '../lexicon/measuredFit.js';
+import { withTurns } from './loopTurns.js';
 import { snippetKeeper, type CorpusTally } from './tallyCorpus.js';
 
 /** What {@link boundedCorpusTally} needs: the lexicon's cap, min count, reserved tokens, and the limit. */
@@ -35,7 +36,10 @@ export async function boundedCorpusTally(
   let pass = 0;
   const bounded = await boundedTally(
     () => {
-      const documents = open();
+      // Each pass gives the event loop a turn every 100 ms or so between documents. No document is
+      // tokenized ahead (that would hold all its tokens at once, past the memory plan): boundedTally
+      // takes a long one a piece at a time (scanPieces), as one step.
+      const documents = withTurns(open(), null);
       pass += 1;
       if (pass > 1) return documents;
       return (async function* () {

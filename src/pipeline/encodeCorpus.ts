@@ -3,6 +3,7 @@ import { shapeInto, type Shape } from '../lexicon/Shape.js';
 import type { LabelledText } from '../tally/Tally.js';
 import { IN_FLIGHT_PER_THREAD, batchesOf, inOrder } from '../workers/batches.js';
 import { WorkerPool } from '../workers/WorkerPool.js';
+import { LoopTurns } from './loopTurns.js';
 
 /** Receives encoded rows in corpus order. */
 export interface RowSink {
@@ -65,7 +66,8 @@ export function rowWriter(lexicon: Lexicon, shape: Shape | null, sink: RowSink) 
 
 /**
  * Encodes a stream of documents with a lexicon, row by row, into a sink: the same tokenize and id
- * path as `Lexicon.encode`, holding one row (or, with threads, a few batches) at a time.
+ * path as `Lexicon.encode`, holding one row (or, with threads, a few batches) at a time. The event loop
+ * gets a turn at least every 100 ms or so, a very long document included (LoopTurns).
  * @example
  * const rows: number[][] = [];
  * const stats = await encodeCorpus(readCorpus('held-out.jsonl'), lexicon, lexicon.shape, { row: (ids) => void rows.push([...ids]) });
@@ -81,9 +83,16 @@ export async function encodeCorpus(
   const { stats, write } = rowWriter(lexicon, shape, sink);
   const threads = options.threads ?? 1;
   if (threads <= 1) {
-    for await (const doc of documents) {
-      const text = typeof doc === 'string' ? doc : doc.text;
-      await write(lexicon.encode(text, { shape: null }), typeof doc === 'string' ? undefined : doc.label);
+    const turns = new LoopTurns({ rules: lexicon.rules, strings: false });
+    try {
+      for await (const doc of documents) {
+        const text = typeof doc === 'string' ? doc : doc.text;
+        const wait = turns.before(text);
+        if (wait !== null) await wait;
+        await write(lexicon.encode(text, { shape: null }), typeof doc === 'string' ? undefined : doc.label);
+      }
+    } finally {
+      turns.done();
     }
     return stats;
   }

@@ -8,6 +8,7 @@ import { Tally, type LabelledText } from '../tally/Tally.js';
 import { IN_FLIGHT_PER_THREAD, batchesOf, inOrder } from '../workers/batches.js';
 import type { WorkerReply } from '../workers/messages.js';
 import { WorkerPool } from '../workers/WorkerPool.js';
+import { LoopTurns } from './loopTurns.js';
 import { rowWriter, type EncodeStats, type RowSink } from './encodeCorpus.js';
 import { snippetKeeper, type CorpusTally, type TallyCorpusOptions } from './tallyCorpus.js';
 
@@ -66,14 +67,21 @@ export async function tallyAndRecord(
   try {
     if (threads <= 1) {
       let numbers = new Int32Array(1024);
-      for await (const doc of documents) {
-        const text = typeof doc === 'string' ? doc : doc.text;
-        const label = typeof doc === 'string' ? undefined : doc.label;
-        const tokens = tokenize(text, rules);
-        if (tokens.length > numbers.length) numbers = new Int32Array(Math.max(tokens.length, numbers.length * 2));
-        tally.addNumbered(tokens, label, numbers);
-        keeper.see(text);
-        await spill.add(labels.of(label), 0, numbers, tokens.length);
+      const turns = new LoopTurns({ rules, strings: true });
+      try {
+        for await (const doc of documents) {
+          const text = typeof doc === 'string' ? doc : doc.text;
+          const label = typeof doc === 'string' ? undefined : doc.label;
+          const wait = turns.before(text);
+          if (wait !== null) await wait;
+          const tokens = tokenize(text, rules);
+          if (tokens.length > numbers.length) numbers = new Int32Array(Math.max(tokens.length, numbers.length * 2));
+          tally.addNumbered(tokens, label, numbers);
+          keeper.see(text);
+          await spill.add(labels.of(label), 0, numbers, tokens.length);
+        }
+      } finally {
+        turns.done();
       }
     } else {
       const pool = WorkerPool.start({ kind: 'tally', rules, numbered: true }, threads, { tally });

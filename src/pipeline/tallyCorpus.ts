@@ -3,6 +3,7 @@ import { Tally, type LabelledText } from '../tally/Tally.js';
 import { IN_FLIGHT_PER_THREAD, batchesOf, inOrder } from '../workers/batches.js';
 import type { WorkerReply } from '../workers/messages.js';
 import { WorkerPool } from '../workers/WorkerPool.js';
+import { LoopTurns } from './loopTurns.js';
 
 /** How many corpus snippets a lexicon keeps as canaries, and how long each may be. */
 const SNIPPETS = 3;
@@ -43,6 +44,7 @@ export function snippetKeeper(): { snippets: string[]; see: (text: string) => vo
  * Tallies a stream of documents (a corpus reader, or any async iterable of texts) under `rules`,
  * holding only the counts, and keeps a few short documents as canary snippets. With
  * `threads` > 1 the documents are tokenized in worker threads in batches; the result is identical.
+ * The event loop gets a turn at least every 100 ms or so, a very long document included (LoopTurns).
  * @example
  * const { tally, snippets } = await tallyCorpus(readCorpus('reviews.csv', { label: 'topic' }), resolveRules(), { threads: 4 });
  * const lexicon = freeze(tally, { cap: 12000, snippets });
@@ -56,9 +58,17 @@ export async function tallyCorpus(
   const keeper = snippetKeeper();
   const threads = options.threads ?? 1;
   if (threads <= 1) {
-    for await (const doc of documents) {
-      tally.add(doc);
-      keeper.see(typeof doc === 'string' ? doc : doc.text);
+    const turns = new LoopTurns({ rules, strings: true });
+    try {
+      for await (const doc of documents) {
+        const text = typeof doc === 'string' ? doc : doc.text;
+        const wait = turns.before(text);
+        if (wait !== null) await wait;
+        tally.add(doc);
+        keeper.see(text);
+      }
+    } finally {
+      turns.done();
     }
     return { tally, snippets: keeper.snippets };
   }

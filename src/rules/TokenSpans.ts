@@ -13,6 +13,11 @@ export interface SpanSink {
   span(from: number, to: number, type: number): void;
 }
 
+/** What wink-tokenizer's tokens are reported to: `value` tagged `tag` (one of {@link TOKEN_TYPES}). */
+export interface PairSink {
+  pair(value: string, tag: string): void;
+}
+
 const KEEP = 0;
 const DROP = 1;
 const COLLAPSE = 2;
@@ -29,7 +34,7 @@ const FIRST_CAPACITY = 64;
  * When `folded` is true the scanned text is ASCII that still needs lower-casing: spans are read with
  * A-Z as a-z (lower-casing ASCII changes no length and no scanning decision).
  */
-export class TokenSpans implements SpanSink {
+export class TokenSpans implements SpanSink, PairSink {
   /** The text the spans point into. */
   text = '';
   folded = false;
@@ -117,30 +122,24 @@ export class TokenSpans implements SpanSink {
     this.strings[k] = value;
   }
 
-  /** Holds the place of group `g`, a part of the text left to wink-tokenizer, until {@link fillGroups}. */
-  holdGroup(g: number): void {
-    const k = this.#room();
-    this.starts[k] = -2 - g;
-  }
-
-  /** Puts the tokens of each held group, `pairs[g]` (wink's value/tag pairs), in its place. */
-  fillGroups(pairs: readonly (readonly string[])[]): void {
-    const n = this.count;
-    const starts = this.starts.slice(0, n);
-    const ends = this.ends.slice(0, n);
-    const strings = this.strings.slice(0, n);
-    this.count = 0;
-    for (let k = 0; k < n; k++) {
-      const start = starts[k] as number;
-      if (start >= 0) {
-        const j = this.#room();
-        this.starts[j] = start;
-        this.ends[j] = ends[k] as number;
-      } else if (start === -1) this.addString(strings[k] as string);
-      else {
-        const group = pairs[-2 - start] as readonly string[];
-        for (let p = 0; p < group.length; p += 2) this.pair(group[p] as string, group[p + 1] as string);
-      }
+  /**
+   * Takes over the tokens of `other` (a scan of the same text under the same rules, made ahead),
+   * leaving `other` with this one's old buffers. Made strings of when this one makes strings.
+   */
+  takeFrom(other: TokenSpans): void {
+    [this.starts, other.starts] = [other.starts, this.starts];
+    [this.ends, other.ends] = [other.ends, this.ends];
+    [this.strings, other.strings] = [other.strings, this.strings];
+    this.text = other.text;
+    this.folded = other.folded;
+    this.count = other.count;
+    other.count = 0;
+    other.text = '';
+    if (!this.#makeStrings) return;
+    for (let k = 0; k < this.count; k++) {
+      if ((this.starts[k] as number) < 0) continue;
+      this.strings[k] = this.tokenAt(k);
+      this.starts[k] = -1;
     }
   }
 

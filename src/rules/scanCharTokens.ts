@@ -10,32 +10,67 @@ const SPACE = ' ';
  * Character-level tokens (encoding contract, rule 2) of `out.text`: every code point that is not white
  * space (the engine's `\s`; none lies outside the first plane) is a token, reported to `out` as a
  * span; each maximal run of white space is one token, a single U+0020 space, when `spaces` is `keep`,
- * and nothing when it is `drop`. A lone surrogate is a code point of its own.
+ * and nothing when it is `drop`. A lone surrogate is a code point of its own. In steps of bounded work,
+ * so a caller can pause between them.
+ */
+export class CharScan {
+  #out: TokenSpans | null = null;
+  #keep = true;
+  #at = 0;
+  #inSpace = false;
+
+  /** Starts on `out.text`. */
+  begin(out: TokenSpans, spaces: 'keep' | 'drop'): void {
+    this.#out = out;
+    this.#keep = spaces === 'keep';
+    this.#at = 0;
+    this.#inSpace = false;
+  }
+
+  /** Goes on for about `budget` code units (Infinity: to the end); true once every token is in `out`. */
+  step(budget: number): boolean {
+    const out = this.#out as TokenSpans;
+    const text = out.text;
+    const n = text.length;
+    const keep = this.#keep;
+    const until = Math.min(n, this.#at + budget);
+    let inSpace = this.#inSpace;
+    let i = this.#at;
+    while (i < until) {
+      const code = text.charCodeAt(i);
+      if (code >= 0xd800 && code <= 0xdbff && i + 1 < n) {
+        const next = text.charCodeAt(i + 1);
+        if (next >= 0xdc00 && next <= 0xdfff) {
+          out.span(i, i + 2, CHAR_TYPE);
+          inSpace = false;
+          i += 2;
+          continue;
+        }
+      }
+      if (WHITE_SPACE_TABLE[code] !== 1) {
+        out.span(i, i + 1, CHAR_TYPE);
+        inSpace = false;
+      } else if (keep && !inSpace) {
+        out.addString(SPACE);
+        inSpace = true;
+      }
+      i += 1;
+    }
+    this.#at = i;
+    this.#inSpace = inSpace;
+    if (i < n) return false;
+    this.#out = null;
+    return true;
+  }
+}
+
+const shared = new CharScan();
+
+/**
+ * The character level of `out.text` all at once (see {@link CharScan}, which it runs to the end).
  * @example scanCharTokens(out, 'keep') // out.text 'a \t b😀' -> 'a', ' ', 'b', '😀'
  */
 export function scanCharTokens(out: TokenSpans, spaces: 'keep' | 'drop'): void {
-  const text = out.text;
-  const n = text.length;
-  const keep = spaces === 'keep';
-  let inSpace = false;
-  for (let i = 0; i < n; ) {
-    const code = text.charCodeAt(i);
-    if (code >= 0xd800 && code <= 0xdbff && i + 1 < n) {
-      const next = text.charCodeAt(i + 1);
-      if (next >= 0xdc00 && next <= 0xdfff) {
-        out.span(i, i + 2, CHAR_TYPE);
-        inSpace = false;
-        i += 2;
-        continue;
-      }
-    }
-    if (WHITE_SPACE_TABLE[code] !== 1) {
-      out.span(i, i + 1, CHAR_TYPE);
-      inSpace = false;
-    } else if (keep && !inSpace) {
-      out.addString(SPACE);
-      inSpace = true;
-    }
-    i += 1;
-  }
+  shared.begin(out, spaces);
+  shared.step(Number.POSITIVE_INFINITY);
 }

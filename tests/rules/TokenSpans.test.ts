@@ -35,17 +35,6 @@ describe('TokenSpans', () => {
     expect(spans.toArray()).toEqual(['ferry', '<number>', '<url>', '東', '京']);
   });
 
-  it('puts held groups in their places', () => {
-    const spans = new TokenSpans();
-    spans.begin("a can't b 10 am", false, resolveRules());
-    spans.span(0, 1, TYPE_CODE.word);
-    spans.holdGroup(0);
-    spans.span(8, 9, TYPE_CODE.word);
-    spans.holdGroup(1);
-    spans.fillGroups([['ca', 'word', "n't", 'word'], ['10 am', 'time']]);
-    expect(spans.toArray()).toEqual(['a', 'ca', "n't", 'b', '10 am']);
-  });
-
   it('grows past its first room, and lets large buffers go at the next text', () => {
     const spans = new TokenSpans();
     const text = 'x '.repeat(100_000);
@@ -66,10 +55,9 @@ describe('TokenSpans that make strings as they go', () => {
       const spans = new TokenSpans(makeStrings);
       spans.begin('The FERRY 12 x', folded, rules);
       spans.span(0, 3, TYPE_CODE.word);
-      spans.holdGroup(0);
+      spans.pair('ferry', 'word');
       spans.span(10, 12, TYPE_CODE.number);
       spans.span(13, 14, TYPE_CODE.word);
-      spans.fillGroups([['ferry', 'word']]);
       return spans.toArray();
     };
     expect(made(true, true)).toEqual(['the', 'ferry', '<number>', 'x']);
