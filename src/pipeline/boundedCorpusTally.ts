@@ -24,8 +24,8 @@ export interface BoundedCorpusTally extends CorpusTally {
  * token the lexicon keeps, with the fit's figures of the whole corpus in `measured` (pass it to
  * freeze), canary snippets kept as tallyCorpus keeps them.
  * @example
- * const { tally, snippets, measured } = await boundedCorpusTally(() => readCorpus('big.txt'), resolveRules(), { cap: 50000, minCount: 1, reserved: [], memoryLimitMiB: 256 });
- * const lexicon = freeze(tally, { cap: 50000, snippets, measured });
+ * const { tally, measured } = await boundedCorpusTally(() => readCorpus('big.txt'), resolveRules(), { cap: 50000, minCount: 1, reserved: [], memoryLimitMiB: 256 });
+ * const lexicon = freeze(tally, { cap: 50000, measured });
  */
 export async function boundedCorpusTally(
   open: () => AsyncIterable<string | LabelledText>,

@@ -48,7 +48,7 @@ class LabelNumbers {
  * the file with `discard` if it does not encode.
  * @example
  * const recorded = await tallyAndRecord(readCorpus('train.csv', { label: 'topic' }), resolveRules(), 'train.numbers.tmp');
- * const lexicon = freeze(recorded.tally, { cap: 12000, snippets: recorded.snippets, shape: { length: 96, pad: 'start', cut: 'end' } });
+ * const lexicon = freeze(recorded.tally, { cap: 12000, shape: { length: 96, pad: 'start', cut: 'end' } });
  * await recorded.encode(lexicon, lexicon.shape, { row: (ids) => void train.push([...ids]) });
  */
 export async function tallyAndRecord(
