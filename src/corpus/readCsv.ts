@@ -87,7 +87,8 @@ export async function* readCsv(context: ReadContext, delimiter: ',' | '\t'): Asy
         const c = columns!; // the header is always the first record split
         if (values.length !== c.count) throw fieldCountError(values.length, c.count, where);
         const text = values[c.text]!;
-        batch.push(c.label === undefined ? { text, where } : { text, label: values[c.label]!, where });
+        const key = String(start.row);
+        batch.push(c.label === undefined ? { text, key, where } : { text, label: values[c.label]!, key, where });
       }
     } catch (e) {
       failure = e;

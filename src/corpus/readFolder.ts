@@ -27,6 +27,6 @@ export async function* readFolder(context: ReadContext): AsyncGenerator<CorpusDo
     const text = decodeText(bytes, start, { badText: context.badText, stats: context.stats, file });
     if (text === null) continue;
     const slash = relative.indexOf('/');
-    yield [slash === -1 ? { text, where: { file } } : { text, label: relative.slice(0, slash), where: { file } }];
+    yield [slash === -1 ? { text, key: relative, where: { file } } : { text, label: relative.slice(0, slash), key: relative, where: { file } }];
   }
 }

@@ -13,7 +13,7 @@ import { readLineCorpus } from './readLineCorpus.js';
 export function readJsonl(context: ReadContext): AsyncGenerator<CorpusDocument[], void, undefined> {
   return readLineCorpus(context, {
     blank: isBlank,
-    document: (json, where) => documentOf(json, where, context),
+    document: (json, where, row) => documentOf(json, where, String(row), context),
     reason: 'the file has no JSON lines',
     advice: 'put one JSON object on each line',
   });
@@ -28,7 +28,7 @@ function isBlank(bytes: Buffer): boolean {
   return true;
 }
 
-function documentOf(json: string, where: Where, context: ReadContext): CorpusDocument {
+function documentOf(json: string, where: Where, key: string, context: ReadContext): CorpusDocument {
   let value: unknown;
   try {
     value = JSON.parse(json);
@@ -54,7 +54,7 @@ function documentOf(json: string, where: Where, context: ReadContext): CorpusDoc
       `field ${JSON.stringify(context.text)} is ${jsonKind(text)}, not a string; store the text as a JSON string`,
     );
   }
-  if (context.label === undefined) return { text, where };
+  if (context.label === undefined) return { text, key, where };
   const raw = member(record, context.label, where, 'label');
   if (raw === null) {
     throw inputError(
@@ -63,7 +63,7 @@ function documentOf(json: string, where: Where, context: ReadContext): CorpusDoc
       `field ${JSON.stringify(context.label)} is null; give every line a label, or leave out --label`,
     );
   }
-  if (typeof raw === 'string') return { text, label: raw, where };
+  if (typeof raw === 'string') return { text, label: raw, key, where };
   const fix = typeof raw === 'number' || typeof raw === 'boolean' ? 'put the value in quotes in the file, as the label should read' : 'store the label as a JSON string';
   throw inputError('BAD_FIELD_TYPE', { ...where, field: context.label }, `field ${JSON.stringify(context.label)} is ${jsonKind(raw)}, not a string; labels are strings: ${fix}`);
 }

@@ -9,8 +9,11 @@ import { readLines, stripCr } from './lines.js';
 export interface LineCorpus {
   /** True for a line (without its CR) that is no document. */
   blank(bytes: Buffer): boolean;
-  /** The document of a decoded line; throws a LexlockError for a line that is wrong. */
-  document(text: string, where: Where): CorpusDocument;
+  /**
+   * The document of a decoded line that starts at `where`; `row` is the line's number among the lines
+   * that are not blank (those left out for bad text count). Throws a LexlockError for a line that is wrong.
+   */
+  document(text: string, where: Where & { line: number }, row: number): CorpusDocument;
   /** What the `EMPTY_CORPUS` message advises. */
   advice: string;
   /** Why it is empty when the file has bytes but no document. */
@@ -26,14 +29,16 @@ export async function* readLineCorpus(context: ReadContext, kind: LineCorpus): A
   const { file } = context;
   context.empty = { reason: kind.reason, advice: kind.advice };
   const limit = { maxBytes: context.maxRecordBytes, file };
+  let rows = 0;
   for await (const lines of readLines(fileChunks(file, context.chunkSize, context.stats), limit)) {
     const batch: CorpusDocument[] = [];
     try {
       for (const line of lines) {
         const bytes = stripCr(line.bytes);
         if (kind.blank(bytes)) continue;
+        rows += 1;
         const text = decodeText(bytes, line, context);
-        if (text !== null) batch.push(kind.document(text, { file, line: line.line, byteOffset: line.byteOffset }));
+        if (text !== null) batch.push(kind.document(text, { file, line: line.line, byteOffset: line.byteOffset }, rows));
       }
     } catch (e) {
       if (batch.length > 0) yield batch;

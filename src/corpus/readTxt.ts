@@ -4,7 +4,7 @@ import { readLineCorpus, type LineCorpus } from './readLineCorpus.js';
 
 const TXT: LineCorpus = {
   blank: (bytes) => bytes.length === 0,
-  document: (text, where) => ({ text, where }),
+  document: (text, where) => ({ text, key: String(where.line), where }),
   reason: 'the file has no non-empty lines',
   advice: 'put one document on each line',
 };
