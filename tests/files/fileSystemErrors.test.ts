@@ -1,9 +1,9 @@
 import { spawnSync } from 'node:child_process';
-import { mkdtempSync, rmdirSync } from 'node:fs';
+import { mkdtempSync, readdirSync, rmdirSync } from 'node:fs';
 import { chmod, mkdir, readdir, readFile, statfs, writeFile } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { fileURLToPath } from 'node:url';
+import { fileURLToPath, pathToFileURL } from 'node:url';
 import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
 import { cli, freshFolderEachTest, tempFolder } from '../helpers/cli.js';
 
@@ -16,7 +16,12 @@ import { cli, freshFolderEachTest, tempFolder } from '../helpers/cli.js';
 // skipped, and the title says why.
 
 const root = join(fileURLToPath(import.meta.url), '../../..');
-const bin = join(root, 'dist', 'bin.js');
+/** The built CLI module (`run`): code-split by tsup under a hashed name. */
+const cliModule = (() => {
+  const name = readdirSync(join(root, 'dist')).find((n) => /^cli-[A-Z0-9]+\.js$/.test(n));
+  if (name === undefined) throw new Error('dist/ has no cli-*.js: run npm run build first');
+  return pathToFileURL(join(root, 'dist', name)).href;
+})();
 const tmp = freshFolderEachTest();
 const isRoot = process.getuid?.() === 0;
 
@@ -27,12 +32,18 @@ interface Ran {
 }
 
 /**
- * Runs lexlock on `args` in this process; `nobody` runs the built executable as user 65534 instead
- * (for permissions, which root bypasses).
+ * Runs lexlock on `args` in this process; `nobody` runs the built CLI as user 65534 instead (for
+ * permissions, which root bypasses): a child process loads it as root and then drops to nobody, since
+ * the checkout may sit in a folder only root may enter (mktemp -d makes mode 700).
  */
 async function lexlock(args: string[], nobody = false): Promise<Ran> {
   if (!nobody) return cli(...args);
-  const r = spawnSync(process.execPath, [bin, ...args], { encoding: 'utf8', uid: 65534, gid: 65534 });
+  const script = [
+    `const { run } = await import(${JSON.stringify(cliModule)});`,
+    'process.setgroups([]); process.setgid(65534); process.setuid(65534);',
+    `process.exitCode = await run(${JSON.stringify(args)}, { stdout: process.stdout, stderr: process.stderr, env: process.env });`,
+  ].join('\n');
+  const r = spawnSync(process.execPath, ['--input-type=module', '-e', script], { encoding: 'utf8', cwd: tmpdir() });
   return { code: r.status, stdout: r.stdout, stderr: r.stderr };
 }
 
