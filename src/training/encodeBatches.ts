@@ -66,21 +66,25 @@ export function encodeBatches(
   options: BatchOptions,
 ): BatchStream {
   checkDocuments(documents);
-  const rows = options.rows;
-  if (!Number.isSafeInteger(rows) || rows < 1) {
-    throw new LexlockError('BAD_OPTION', `rows: ${String(rows)} is not a whole number of rows from 1`, { field: 'rows' });
+  // Read through a possibly missing object: a JavaScript caller may leave the options out.
+  const asked = (options as Partial<BatchOptions> | undefined)?.rows;
+  if (asked === undefined || !Number.isSafeInteger(asked) || asked < 1) {
+    throw new LexlockError('BAD_OPTION', `rows: ${String(asked)} is not a whole number of rows from 1`, { field: 'rows' });
   }
-  const shape = options.shape ?? lexicon.shape;
-  if (shape === null) {
+  const rows: number = asked;
+  const given = options.shape ?? lexicon.shape;
+  if (given === null) {
     throw new LexlockError('BAD_OPTION', 'shape: the lexicon stores no shape, so the rows have no length; pass { shape: { length, pad, cut } }', { field: 'shape' });
   }
-  checkShape(shape);
+  const shape: Shape = checkShape(given);
   const shuffle = options.shuffle;
   if (shuffle !== undefined) {
     if (!Number.isSafeInteger(shuffle.pool) || shuffle.pool < 1) {
       throw new LexlockError('BAD_OPTION', `shuffle.pool: ${String(shuffle.pool)} is not a whole number of rows from 1`, { field: 'shuffle.pool' });
     }
-    new Pcg32(shuffle.seed); // checks the seed now, not at the first batch
+    if (!Number.isSafeInteger(shuffle.seed) || shuffle.seed < 0) {
+      throw new LexlockError('BAD_OPTION', `shuffle.seed: ${String(shuffle.seed)} is not a whole number from 0 to 2^53 - 1`, { field: 'shuffle.seed' });
+    }
   }
   const unlabelledOk = options.unlabelled === true;
   const labelIds = new Map(lexicon.labels.map((label, id) => [label, id]));
@@ -90,8 +94,8 @@ export function encodeBatches(
     counts.documents = 0;
     counts.unknownLabels = 0;
     counts.unlabelled = 0;
-    const batch = new BatchBuffer(rows, (shape as Shape).length);
-    const pool = shuffle === undefined ? null : new RowPool(shuffle.pool, (shape as Shape).length, new Pcg32(shuffle.seed));
+    const batch = new BatchBuffer(rows, shape.length);
+    const pool = shuffle === undefined ? null : new RowPool(shuffle.pool, shape.length, new Pcg32(shuffle.seed));
     for await (const item of documents) {
       const position = counts.documents + 1;
       const { text, label, key } = checkedItem(item, position);

@@ -140,9 +140,10 @@ describe('encodeBatches', () => {
     ['rows 2.5', docs, { rows: 2.5 }, 'rows: 2.5 is not a whole number of rows from 1'],
     ['a bad pad', docs, { rows: 2, shape: { length: 3, pad: 'left' as 'start', cut: 'end' } }, 'pad: "left" is not an end of a row; use start (zeros before the tokens) or end (zeros after them)'],
     ['pool 0', docs, { rows: 2, shuffle: { seed: 1, pool: 0 } }, 'shuffle.pool: 0 is not a whole number of rows from 1'],
-    ['seed -1', docs, { rows: 2, shuffle: { seed: -1, pool: 8 } }, 'seed: -1 is not a whole number from 0 to 2^53 - 1'],
+    ['seed -1', docs, { rows: 2, shuffle: { seed: -1, pool: 8 } }, 'shuffle.seed: -1 is not a whole number from 0 to 2^53 - 1'],
     ['one string', 'late ferry', { rows: 2 }, 'encodeBatches takes a corpus (readCorpus(...), or an iterable of texts or { text, label, key } objects), and this is one string (it would become one row a character): pass [text]'],
     ['null', null, { rows: 2 }, 'encodeBatches takes a corpus (readCorpus(...), or an iterable of texts or { text, label, key } objects), and this is null'],
+    ['no options', docs, undefined as unknown as BatchOptions, 'rows: undefined is not a whole number of rows from 1'],
   ])('refuses %s when called', (_name, input, options, message) => {
     expect(() => encodeBatches(input as BatchDocument[], lexicon, options)).toThrow(message);
   });
