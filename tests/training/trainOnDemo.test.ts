@@ -2,7 +2,8 @@
 // streamed by encodeBatches (shuffled, labels weighted by labelWeights), a small embedding + average
 // pooling classifier trained with @tensorflow/tfjs on its pure-JS CPU backend (tensors and layers
 // only). It must beat the majority class on the held-out demo messages, and predict the same from the
-// ids a separate serving module makes of the raw text.
+// ids a separate serving module makes of the raw text. Model, seeds and batches are the README's
+// Training block's (94.7 % held out, against 24 % for the most common label).
 //
 // The model: ids -> id counts over the row length -> a dense layer without bias (the embedding table,
 // lexicon.size x 16) -> a dense layer (one logit a label). Counts over the length times the table are
@@ -51,7 +52,7 @@ function classifier(lexicon: Lexicon): tf.Sequential {
     layers: [
       tf.layers.categoryEncoding({ inputShape: [LENGTH], numTokens: lexicon.size, outputMode: 'count' }),
       tf.layers.rescaling({ scale: 1 / LENGTH }),
-      tf.layers.dense({ units: WIDTH, useBias: false, kernelInitializer: tf.initializers.randomUniform({ minval: -0.05, maxval: 0.05, seed: 1 }) }),
+      tf.layers.dense({ units: WIDTH, useBias: false, kernelInitializer: tf.initializers.glorotUniform({ seed: 1 }) }),
       tf.layers.dense({ units: lexicon.labels.length, kernelInitializer: tf.initializers.glorotUniform({ seed: 2 }) }),
     ],
   });
@@ -75,7 +76,7 @@ describe('training a model on encodeBatches', () => {
     const optimizer = tf.train.adam(0.02);
     const weights = tf.tensor1d(labelWeights(lexicon));
     for (let epoch = 0; epoch < EPOCHS; epoch++) {
-      const batches = encodeBatches(readCorpus(TRAIN, { label: 'topic' }), lexicon, { rows: 64, shuffle: { seed: epoch + 1, pool: 512 } });
+      const batches = encodeBatches(readCorpus(TRAIN, { label: 'topic' }), lexicon, { rows: 64, shuffle: { seed: epoch, pool: 512 } });
       for await (const batch of batches) {
         tf.tidy(() => {
           const x = tf.tensor2d(batch.ids, [batch.rows, batch.length], 'int32');
