@@ -45,3 +45,13 @@ export type { TallyFile } from './tally/tallyFile.js';
 export { boundedTally, type BoundedTally, type BoundedTallyOptions } from './tally/boundedTally.js';
 export { memoryPlan, limitFor, LEAST_LIMIT_MIB, type MemoryPlan, type MemoryNeeds } from './tally/memoryPlan.js';
 export type { MeasuredFit } from './lexicon/measuredFit.js';
+export {
+  encodeBatches,
+  type BatchDocument,
+  type BatchOptions,
+  type BatchCounts,
+  type BatchStream,
+  type ShuffleOptions,
+  type KeyedBatch,
+} from './training/encodeBatches.js';
+export { labelWeights, labelWeightsOf } from './training/labelWeights.js';

@@ -7,6 +7,7 @@ import { tokenize } from '../rules/tokenize.js';
 import type { TextRules } from '../rules/TextRules.js';
 import { TokenSpans } from '../rules/TokenSpans.js';
 import type { LabelledText } from '../tally/Tally.js';
+import { checkedItem, checkManyTexts } from './manyTexts.js';
 import { firstKept, keptOf, paddingBefore, shapeInto, type Shape } from './Shape.js';
 
 /** Id 0 is always padding. */
@@ -193,17 +194,19 @@ export class Lexicon {
 
   /**
    * Encodes many texts into one row-major batch. Without a shape (given or stored) every row is as
-   * long as the longest text, padded at the end.
+   * long as the longest text, padded at the end. Takes any synchronous iterable (an array, a Set, a
+   * generator) of texts or `{ text, label }` objects; an async iterable such as `readCorpus(...)` is
+   * refused with `BAD_OPTION` (read it in batches with `encodeBatches`), and so is one string.
    * @example const { ids, rows, length } = lexicon.encodeMany(texts); // a rows x length int32 tensor
    */
   encodeMany(texts: Iterable<string | LabelledText>, options: EncodeOptions = {}): Batch {
+    checkManyTexts(texts);
     const rowsIds: Int32Array[] = [];
     const labels: number[] = [];
     let labelled = false;
     for (const item of texts) {
-      const text = typeof item === 'string' ? item : item.text;
+      const { text, label } = checkedItem(item, rowsIds.length + 1);
       rowsIds.push(this.encode(text, VARIABLE_LENGTH));
-      const label = typeof item === 'string' ? undefined : item.label;
       if (label !== undefined) labelled = true;
       labels.push(label === undefined ? -1 : (this.labelIds.get(label) ?? -1));
     }

@@ -3,6 +3,7 @@ import { existsSync } from 'node:fs';
 import { copyFile, mkdtemp, readFile, rm, writeFile } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
 import { dirname, join } from 'node:path';
+import { createRequire } from 'node:module';
 import { fileURLToPath, pathToFileURL } from 'node:url';
 import { promisify } from 'node:util';
 import { chromium } from 'playwright-core';
@@ -21,6 +22,8 @@ const SPECIFIERS: Record<string, string> = {
   lexlock: pathToFileURL(join(dist, 'index.js')).href,
   'lexlock/node': pathToFileURL(join(dist, 'node.js')).href,
   'lexlock/browser': pathToFileURL(join(dist, 'browser.js')).href,
+  // The Training block's tensor library, a devDependency, from the repository's node_modules.
+  '@tensorflow/tfjs': pathToFileURL(createRequire(import.meta.url).resolve('@tensorflow/tfjs')).href,
 };
 const PLACEHOLDER = "'sha256:…'";
 
@@ -37,6 +40,8 @@ beforeAll(async () => {
   dir = await mkdtemp(join(tmpdir(), 'lexlock-readme-'));
   // The README's corpus name; the demo corpus has its `topic` column.
   await copyFile(join(root, 'corpora-demo', 'ferry-messages.csv'), join(dir, 'reviews.csv'));
+  // The Training block's held-out messages: the demo's other 300, with their `topic`.
+  await copyFile(join(root, 'corpora-demo', 'ferry-messages.jsonl'), join(dir, 'held-out.jsonl'));
 });
 
 afterAll(async () => {
