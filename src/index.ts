@@ -17,6 +17,7 @@ export { nearestRank, summarizeLengths, type LengthSummary } from './tally/neare
 export { freeze, DEFAULT_CAP, type FreezeOptions } from './lexicon/freeze.js';
 export { Lexicon, PADDING_ID, type Batch, type EncodeOptions, type EncodeBytesOptions } from './lexicon/Lexicon.js';
 export { BAD_TEXT_POLICIES, type BadTextPolicy } from './artifact/badTextPolicy.js';
+export { peekText, type TextPeek, type PeekedToken } from './lexicon/peekText.js';
 export { checkShape, describeShape, SHAPE_ENDS, type Shape, type ShapeEnd } from './lexicon/Shape.js';
 export { parseLexicon, type ParseLexiconOptions } from './artifact/parseLexicon.js';
 export { fetchLexicon } from './artifact/fetchLexicon.js';
