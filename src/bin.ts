@@ -37,5 +37,5 @@ if (heapLimits !== null) {
   };
   process.on('SIGINT', () => stop('SIGINT', EXIT.interrupted));
   process.on('SIGTERM', () => stop('SIGTERM', EXIT.terminated));
-  process.exitCode = await run(argv, { stdout: process.stdout, stderr: process.stderr, stdin: process.stdin, env: process.env });
+  process.exitCode = await run(argv, { stdout: process.stdout, stderr: process.stderr, env: process.env });
 }
