@@ -1,6 +1,6 @@
 // The demo: builds a lexicon from the invented ferry-operator messages, encodes them into .npy
 // files ready for training, and verifies the lexicon, all through the lexlock CLI.
-// Run with `npm run demo` (after `npm ci`, which builds dist/).
+// Run with `npm run demo` (after `npm ci`; it builds dist/ first).
 import { existsSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { dirname, join, relative } from 'node:path';
@@ -8,7 +8,7 @@ import { dirname, join, relative } from 'node:path';
 const root = join(dirname(fileURLToPath(import.meta.url)), '..');
 const built = join(root, 'dist', 'node.js');
 if (!existsSync(built)) {
-  console.error('dist/ is missing: run `npm ci` (or `npm run build`) first.');
+  console.error('dist/ is missing: run `npm run build` first (npm run demo does).');
   process.exit(1);
 }
 const { run } = await import(built);

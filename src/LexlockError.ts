@@ -15,6 +15,7 @@ export interface Where {
 /** Stable error codes; tools and tests may rely on them. */
 export type LexlockErrorCode =
   | 'BAD_UTF8'
+  | 'SKIPPED_TEXT'
   | 'CSV_UNCLOSED_QUOTE'
   | 'CSV_FIELD_COUNT'
   | 'CSV_BAD_HEADER'

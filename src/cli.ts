@@ -4,6 +4,7 @@ import { build, BUILD_HELP } from './commands/build.js';
 import { compare, COMPARE_HELP } from './commands/compare.js';
 import { encode, ENCODE_HELP } from './commands/encode.js';
 import { merge, MERGE_HELP } from './commands/merge.js';
+import { peek, PEEK_HELP } from './commands/peek.js';
 import { tally, TALLY_HELP } from './commands/tally.js';
 import type { Io } from './commands/Io.js';
 import { verify, VERIFY_HELP } from './commands/verify.js';
@@ -37,6 +38,7 @@ const COMMANDS: Record<string, { run: (argv: readonly string[], io: Io) => Promi
   build: { run: build, help: BUILD_HELP },
   encode: { run: encode, help: ENCODE_HELP },
   verify: { run: verify, help: VERIFY_HELP },
+  peek: { run: peek, help: PEEK_HELP },
   audit: { run: audit, help: AUDIT_HELP },
   compare: { run: compare, help: COMPARE_HELP },
   tally: { run: tally, help: TALLY_HELP },
@@ -49,6 +51,7 @@ export const MAIN_HELP = `lexlock ${VERSION}: one fingerprinted lexicon file for
   lexlock build <corpus> -o <lexicon.json>        count a corpus, write a lexicon
   lexlock encode <corpus> --lexicon <file> -o <out>  ids as .jsonl or a folder of .npy files
   lexlock verify <lexicon.json>                   check schema, fingerprint and canaries
+  lexlock peek <lexicon.json> [text...]           a text token by token: ids, OOV, cuts, zeros, the row
   lexlock audit <corpus> --lexicon <file> | --cap N  what a cap and a length cost; drift; --report page
   lexlock compare <a.json> <b.json>               two lexicons side by side
   lexlock tally <corpus part> -o <part.tally>     count one part of a corpus, anywhere

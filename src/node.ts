@@ -1,6 +1,7 @@
 // lexlock's Node-only API: corpus readers, lexicon files, atomic writes. Re-exports the browser-safe API too.
 export * from './index.js';
 export { readCorpus, type CorpusDocument, type CorpusOptions, type CorpusReader, type CorpusStats } from './corpus/readCorpus.js';
+export { readCorpusFor, lexiconReadDefaults, type LexiconReadDefaults } from './corpus/readCorpusFor.js';
 export { saveLexicon, type SaveLexiconOptions } from './files/saveLexicon.js';
 export { loadLexicon } from './files/loadLexicon.js';
 export { writeWhole } from './files/writeWhole.js';

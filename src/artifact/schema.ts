@@ -1,5 +1,6 @@
 import * as z from 'zod/mini';
 import { TOKEN_TYPES } from '../rules/TextRules.js';
+import { BAD_TEXT_POLICIES } from './badTextPolicy.js';
 
 /** The `format` member every lexicon file carries. */
 export const LEXICON_FORMAT = 'lexlock.lexicon';
@@ -60,6 +61,12 @@ export const fitSchema = z.strictObject({
   source: z.nullable(z.string()),
   textField: z.nullable(z.string()),
   labelField: z.nullable(z.string()),
+  /**
+   * The bad-text policy the corpus was read with, the default of every reader of this lexicon (encode,
+   * audit, readCorpusFor, encodeBytes). Not part of the fingerprint: it decides which documents are
+   * read, never the ids of a text. Absent in files written before it was recorded: read as `fail`.
+   */
+  badText: z.optional(z.enum(BAD_TEXT_POLICIES)),
   cap: z.nullable(count),
   minCount: count,
   documents: count,

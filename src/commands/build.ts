@@ -187,6 +187,8 @@ async function buildHolding(context: {
       // short document may hold personal data (the fixed probe texts are the canaries).
       source: corpus,
       fields: counted.fields,
+      // What encode, audit and serving do with invalid UTF-8 by default (a tally, read when counted, gives fail).
+      badText: options.badText,
       ...(measured === undefined ? {} : { measured }),
     });
   } catch (e) {

@@ -2,8 +2,9 @@ import { resolveRules, TOKEN_TYPES, type TextRules } from '../rules/TextRules.js
 import { SHAPE_ENDS, type Shape, type ShapeEnd } from '../lexicon/Shape.js';
 import { LexlockError } from '../LexlockError.js';
 import { hasFields, type CorpusKind } from '../corpus/corpusKind.js';
-import { readCorpus } from '../corpus/readCorpus.js';
 import { RECORD_LIMIT_MOST } from '../corpus/recordLimit.js';
+import { lexiconReadDefaults, type LexiconReadDefaults } from '../corpus/readCorpusFor.js';
+import { BAD_TEXT_POLICIES, DEFAULT_BAD_TEXT, type BadTextPolicy } from '../artifact/badTextPolicy.js';
 import type { CorpusStats } from '../corpus/CorpusStats.js';
 import type { Lexicon } from '../lexicon/Lexicon.js';
 import { defaultThreads } from '../workers/WorkerPool.js';
@@ -49,9 +50,9 @@ export const SHAPE_FLAGS: Record<string, FlagSpec> = {
   cut: { kind: 'value' },
 };
 
-/** The corpus-reading options from the flags (text/label fields fall back to `defaults`). */
-export function corpusOptions(args: ParsedArgs, defaults: { text?: string | undefined; label?: string | undefined } = {}) {
-  const badText = choiceFlag(args, 'bad-text', ['fail', 'replace', 'skip'] as const) ?? 'fail';
+/** The corpus-reading options from the flags (text/label fields and the bad-text policy fall back to `defaults`, then to text and fail). */
+export function corpusOptions(args: ParsedArgs, defaults: { text?: string | undefined; label?: string | undefined; badText?: BadTextPolicy | undefined } = {}) {
+  const badText = choiceFlag(args, 'bad-text', BAD_TEXT_POLICIES) ?? defaults.badText ?? DEFAULT_BAD_TEXT;
   const text = valueOf(args, 'text') ?? defaults.text;
   const label = valueOf(args, 'label') ?? defaults.label;
   const recordLimit = recordLimitFlag(args);
@@ -139,12 +140,12 @@ export function corpusFields(kind: CorpusKind, options: { text?: string; label?:
 }
 
 /**
- * Text and label field defaults for reading a corpus with a lexicon: the fields it was built from,
- * where the corpus kind has fields at all (a .txt or folder corpus gets none).
+ * Defaults for reading a corpus with a lexicon: the text and label fields it was built from, where the
+ * corpus kind has fields at all (a .txt or folder corpus gets none), and its bad-text policy (see
+ * {@link lexiconReadDefaults}, which readCorpusFor applies too).
  */
-export function lexiconFieldDefaults(corpus: string, lexicon: Lexicon): { text?: string | undefined; label?: string | undefined } {
-  const fit = hasFields(readCorpus(corpus).kind) ? lexicon.fit : null;
-  return { text: fit?.textField ?? undefined, label: fit?.labelField ?? undefined };
+export function lexiconFieldDefaults(corpus: string, lexicon: Lexicon): LexiconReadDefaults {
+  return lexiconReadDefaults(corpus, lexicon);
 }
 
 /** The lines build and tally print after their summary about documents with invalid UTF-8. */

@@ -2,9 +2,9 @@ import { isUtf8 } from 'node:buffer';
 import { inputError, type Where } from '../LexlockError.js';
 import type { CorpusStats } from './CorpusStats.js';
 import { firstInvalidUtf8 } from '../artifact/firstInvalidUtf8.js';
+import type { BadTextPolicy } from '../artifact/badTextPolicy.js';
 
-/** What to do with a document whose bytes are not valid UTF-8 (encoding contract, rule 7). */
-export type BadTextPolicy = 'fail' | 'replace' | 'skip';
+export type { BadTextPolicy } from '../artifact/badTextPolicy.js';
 
 /** Where a document's bytes start: 1-based line (and CSV row), absolute byte offset. */
 export interface TextStart {

@@ -1,4 +1,5 @@
 import { statSync } from 'node:fs';
+import { BAD_TEXT_POLICIES } from '../artifact/badTextPolicy.js';
 import { inputError } from '../LexlockError.js';
 import type { CorpusDocument } from './CorpusDocument.js';
 import type { CorpusStats } from './CorpusStats.js';
@@ -51,7 +52,6 @@ export interface CorpusReader extends AsyncIterable<CorpusDocument> {
 }
 
 const DEFAULT_CHUNK = 1 << 20;
-const POLICIES: readonly string[] = ['fail', 'replace', 'skip'];
 
 /**
  * Opens a corpus (encoding contract, rule 7): `.csv`, `.tsv`, `.jsonl`/`.ndjson`, `.txt`, or a folder
@@ -75,7 +75,7 @@ export function readCorpus(path: string, options: CorpusOptions = {}): CorpusRea
   }
   const kind = corpusKind(path, isFolder);
   const badText = options.badText ?? 'fail';
-  if (!POLICIES.includes(badText)) {
+  if (!(BAD_TEXT_POLICIES as readonly string[]).includes(badText)) {
     throw inputError('BAD_OPTION', { file: path }, `bad-text policy "${String(badText)}" is not one of fail, replace, skip`);
   }
   if (options.label !== undefined && (kind === 'txt' || kind === 'folder')) {

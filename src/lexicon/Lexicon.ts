@@ -1,5 +1,6 @@
 import { LexlockError } from '../LexlockError.js';
 import { fingerprintOf } from '../artifact/fingerprint.js';
+import { DEFAULT_BAD_TEXT, type BadTextPolicy } from '../artifact/badTextPolicy.js';
 import type { Canary, Encoding, Fit } from '../artifact/schema.js';
 import { scanTokens } from '../rules/scanTokens.js';
 import { SpanIndex } from '../rules/SpanIndex.js';
@@ -7,6 +8,7 @@ import { tokenize } from '../rules/tokenize.js';
 import type { TextRules } from '../rules/TextRules.js';
 import { TokenSpans } from '../rules/TokenSpans.js';
 import type { LabelledText } from '../tally/Tally.js';
+import { decodeBytes } from './decodeBytes.js';
 import { checkedItem, checkManyTexts } from './manyTexts.js';
 import { firstKept, keptOf, paddingBefore, shapeInto, type Shape } from './Shape.js';
 
@@ -36,6 +38,12 @@ const VARIABLE_LENGTH: EncodeOptions = Object.freeze({ shape: null });
 export interface EncodeOptions {
   /** Default: the lexicon's own shape (variable length when it has none). */
   shape?: Shape | null;
+}
+
+/** Options of {@link Lexicon.encodeBytes}: those of encode, and a bad-text policy other than the lexicon's. */
+export interface EncodeBytesOptions extends EncodeOptions {
+  /** Default: the lexicon's own policy ({@link Lexicon.badText}). */
+  badText?: BadTextPolicy;
 }
 
 /**
@@ -100,6 +108,14 @@ export class Lexicon {
   /** The stored shape, or null when encoding is variable-length by default. */
   get shape(): Shape | null {
     return this.encoding.shape;
+  }
+
+  /**
+   * The bad-text policy its corpus was read with (`fit.badText`; `fail` when the fit names none): what
+   * `lexlock encode` and `audit`, `readCorpusFor` and {@link encodeBytes} do with invalid UTF-8 by default.
+   */
+  get badText(): BadTextPolicy {
+    return this.fit?.badText ?? DEFAULT_BAD_TEXT;
   }
 
   /** The label list (id = position), or an empty list when the lexicon has no labels. */
@@ -180,6 +196,19 @@ export class Lexicon {
     const to = paddingBefore(kept, shape);
     for (let i = 0; i < kept; i++) out[to + i] = this.idOfSpan(from + i);
     return out;
+  }
+
+  /**
+   * Encodes one document given as UTF-8 bytes (a request body, an uploaded file) under the lexicon's
+   * bad-text policy, or `options.badText`: the same ids as `encode` of the text a corpus reader decodes
+   * from those bytes as a file of a folder corpus. A leading byte order mark is dropped; invalid UTF-8
+   * is decoded with U+FFFD for each bad sequence under `replace` (the WHATWG Encoding Standard's UTF-8
+   * decoder, as TextDecoder does), throws `BAD_UTF8` naming the first bad byte under `fail`, and
+   * throws `SKIPPED_TEXT` under `skip`: the document is one the corpus reader would have left out.
+   * @example lexicon.encodeBytes(new Uint8Array(await request.arrayBuffer())) // as lexicon.encode(text)
+   */
+  encodeBytes(bytes: Uint8Array, options?: EncodeBytesOptions): Int32Array {
+    return this.encode(decodeBytes(bytes, options?.badText ?? this.badText), options);
   }
 
   /** The id of token `k` of the text encode scanned last. */

@@ -1,5 +1,6 @@
 import { LexlockError } from '../LexlockError.js';
 import { makeCanaries } from '../artifact/canaries.js';
+import { BAD_TEXT_POLICIES, DEFAULT_BAD_TEXT, type BadTextPolicy } from '../artifact/badTextPolicy.js';
 import type { Encoding, Fit } from '../artifact/schema.js';
 import { summarizeLengths } from '../tally/nearestRank.js';
 import type { Tally } from '../tally/Tally.js';
@@ -36,6 +37,11 @@ export interface FreezeOptions {
   source?: string | null;
   /** The corpus fields the text and labels came from, recorded so `encode` can default to them. */
   fields?: { text: string | null; label: string | null };
+  /**
+   * The bad-text policy the corpus was read with (default `fail`), recorded so every reader of the
+   * lexicon defaults to it (see {@link Lexicon.badText}).
+   */
+  badText?: BadTextPolicy;
   /** Time of the build, for the fit record (default now). */
   now?: Date;
   /**
@@ -113,6 +119,10 @@ export function freeze(tally: Tally, options: FreezeOptions = {}): Lexicon {
     reservedSet.add(r);
   }
   const shape = options.shape ? checkShape({ ...options.shape }) : null;
+  const badText = options.badText ?? DEFAULT_BAD_TEXT;
+  if (!BAD_TEXT_POLICIES.includes(badText)) {
+    throw new LexlockError('BAD_OPTION', `badText: "${String(badText)}" is not one of ${BAD_TEXT_POLICIES.join(', ')}`, { field: 'badText' });
+  }
 
   // The kept tokens, in rank order, without ranking every token; then every count, most first, for
   // coverage and the cap's group of equal counts (one typed array, however many tokens there are).
@@ -164,6 +174,7 @@ export function freeze(tally: Tally, options: FreezeOptions = {}): Lexicon {
     source: options.source == null ? null : corpusName(options.source),
     textField: options.fields?.text ?? null,
     labelField: options.fields?.label ?? null,
+    badText,
     cap,
     minCount,
     documents: tally.documents,

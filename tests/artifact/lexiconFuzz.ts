@@ -138,6 +138,12 @@ export function fits(value: unknown, path: Path, depth = 0): boolean {
   return true;
 }
 
+/**
+ * Members a lexicon of this format may lack: `fit.badText` (read as `fail`) was first written after
+ * format version 2 files existed. Deleting one must not make a file refused.
+ */
+export const OPTIONAL_MEMBERS: ReadonlySet<string> = new Set(['fit.badText']);
+
 /** Every member path of a document (not the top level itself). */
 export function pathsOf(value: Json, path: Path = []): Path[] {
   const out: Path[] = [];

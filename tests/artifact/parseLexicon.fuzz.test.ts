@@ -32,6 +32,7 @@ import {
   deepArrayText,
   deepObjectText,
   deleteAt,
+  OPTIONAL_MEMBERS,
   fits,
   getAt,
   kindOf,
@@ -169,7 +170,7 @@ function mutate(d: Draw): Mutated {
   switch (d.op) {
     case 'delete':
       deleteAt(doc, target);
-      if (typeof target[target.length - 1] === 'string') mustRefuse = 'a member every lexicon has is missing';
+      if (typeof target[target.length - 1] === 'string' && !OPTIONAL_MEMBERS.has(pathName(target))) mustRefuse = 'a member every lexicon has is missing';
       break;
     case 'replace':
     case 'near': {

@@ -62,7 +62,7 @@ describe('lexlock verify', () => {
 describe('lexlock', () => {
   it('exits 2 on an unknown command and prints help on --help', async () => {
     const r = await cli('train');
-    expect([r.code, r.stderr]).toEqual([2, 'lexlock: unknown command "train"; the commands are build, encode, verify, audit, compare, tally, merge (lexlock --help)\n']);
+    expect([r.code, r.stderr]).toEqual([2, 'lexlock: unknown command "train"; the commands are build, encode, verify, peek, audit, compare, tally, merge (lexlock --help)\n']);
     expect((await cli('--help')).stdout).toContain('lexlock build <corpus> -o <lexicon.json>');
     expect((await cli('build', '--help')).stdout).toContain('--min-count N');
   });
