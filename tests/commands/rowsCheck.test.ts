@@ -16,12 +16,12 @@ vi.mock('../../src/pipeline/encodeCorpus.js', async (original) => {
       const [documents, lexicon, shape, sink, options] = args;
       let first = true;
       const leaky = {
-        row: async (ids: Int32Array, kept: number, label: number | null) => {
+        row: async (ids: Int32Array, kept: number, label: number | null, key: string) => {
           if (lose.mode === 'row' && first) {
             first = false;
             return;
           }
-          await sink.row(ids, kept, label);
+          await sink.row(ids, kept, label, key);
         },
       };
       const stats = await real.encodeCorpus(documents, lexicon, shape, leaky, options);
