@@ -17,6 +17,10 @@ export { nearestRank, summarizeLengths, type LengthSummary } from './tally/neare
 export { freeze, DEFAULT_CAP, type FreezeOptions } from './lexicon/freeze.js';
 export { Lexicon, PADDING_ID, type Batch, type EncodeOptions } from './lexicon/Lexicon.js';
 export { checkShape, describeShape, SHAPE_ENDS, type Shape, type ShapeEnd } from './lexicon/Shape.js';
+export { DEFAULT_SEED, type Split, type SplitPlan } from './split/Split.js';
+export { splitOf, splitChooser, splitPoint } from './split/splitOf.js';
+export { parseSplits } from './split/parseSplits.js';
+export { checkSplits } from './split/checkSplits.js';
 export { parseLexicon, type ParseLexiconOptions } from './artifact/parseLexicon.js';
 export { fetchLexicon } from './artifact/fetchLexicon.js';
 export { serializeLexicon } from './artifact/serializeLexicon.js';

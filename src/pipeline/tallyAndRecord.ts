@@ -4,7 +4,7 @@ import type { Lexicon } from '../lexicon/Lexicon.js';
 import type { Shape } from '../lexicon/Shape.js';
 import { tokenize } from '../rules/tokenize.js';
 import type { TextRules } from '../rules/TextRules.js';
-import { Tally, type LabelledText } from '../tally/Tally.js';
+import { Tally } from '../tally/Tally.js';
 import { IN_FLIGHT_PER_THREAD, batchesOf, inOrder } from '../workers/batches.js';
 import type { WorkerReply } from '../workers/messages.js';
 import { WorkerPool } from '../workers/WorkerPool.js';
