@@ -55,6 +55,10 @@ export interface CorpusReader extends AsyncIterable<CorpusDocument> {
   readonly kind: CorpusKind;
   /** The corpus path as given. */
   readonly path: string;
+  /** The bad-text policy it reads under. */
+  readonly badText: BadTextPolicy;
+  /** The key field it reads keys from, or null when keys are numbered (see {@link CorpusDocument.key}). */
+  readonly keyField: string | null;
 }
 
 const DEFAULT_CHUNK = 1 << 20;
@@ -107,6 +111,8 @@ export function readCorpus(path: string, options: CorpusOptions = {}): CorpusRea
     stats,
     kind,
     path,
+    badText,
+    keyField: options.key ?? null,
     [Symbol.asyncIterator]() {
       stats.documents = 0;
       stats.replaced = 0;

@@ -4,6 +4,7 @@ import type { LabelledText } from '../tally/Tally.js';
 import { IN_FLIGHT_PER_THREAD, batchesOf, inOrder } from '../workers/batches.js';
 import { WorkerPool } from '../workers/WorkerPool.js';
 import { LoopTurns } from './loopTurns.js';
+import { countRow, emptyEncodeStats, type EncodeStats, type RowFacts } from './EncodeStats.js';
 
 /**
  * A document to encode: a text, or a text with a label and a key (a corpus reader's documents are such).
@@ -15,25 +16,15 @@ export type EncodableDocument = string | (LabelledText & { key?: string });
 export interface RowSink {
   /**
    * One document: `ids` (shaped when a shape was given, else variable length), how many of them are
-   * tokens, its label id (-1 for a label the lexicon lacks, null for an unlabelled document) and its
-   * key (the document's own, or its place in the stream from 1). `ids` is reused for the next row:
-   * copy it to keep it.
+   * tokens, its label id (-1 for a label the lexicon lacks, null for an unlabelled document), its
+   * key (the document's own, or its place in the stream from 1) and what it had before it was
+   * shaped (`facts`: its tokens and OOV tokens). `ids` and `facts` are reused for the next row:
+   * copy them to keep them.
    */
-  row(ids: Int32Array, kept: number, labelId: number | null, key: string): Promise<void> | void;
+  row(ids: Int32Array, kept: number, labelId: number | null, key: string, facts: RowFacts): Promise<void> | void;
 }
 
-/** What an encode run saw. */
-export interface EncodeStats {
-  documents: number;
-  /** Tokens of all documents before any cut. */
-  tokens: number;
-  oovTokens: number;
-  truncatedDocuments: number;
-  droppedTokens: number;
-  /** Documents whose label the lexicon does not know (label id -1). */
-  unknownLabels: number;
-  labelled: number;
-}
+export { countRow, emptyEncodeStats, type EncodeStats, type RowFacts } from './EncodeStats.js';
 
 /** Options of {@link encodeCorpus}. */
 export interface EncodeCorpusOptions {
@@ -43,31 +34,25 @@ export interface EncodeCorpusOptions {
 
 /** Shapes one document's ids into the sink and counts what encoding it cost. */
 export function rowWriter(lexicon: Lexicon, shape: Shape | null, sink: RowSink) {
-  const stats: EncodeStats = { documents: 0, tokens: 0, oovTokens: 0, truncatedDocuments: 0, droppedTokens: 0, unknownLabels: 0, labelled: 0 };
+  const stats = emptyEncodeStats(lexicon.labels.length);
+  const facts: RowFacts = { tokens: 0, oovTokens: 0 };
   const shaped = shape === null ? null : new Int32Array(shape.length);
   const labels = new Map(lexicon.labels.map((l, i) => [l, i]));
   async function write(ids: Int32Array, label: string | undefined, key: string | undefined): Promise<void> {
-    stats.documents += 1;
-    const rowKey = key ?? String(stats.documents);
-    stats.tokens += ids.length;
-    for (let i = 0; i < ids.length; i++) if (ids[i] === lexicon.oovId) stats.oovTokens += 1;
-    let labelId: number | null = null;
-    if (label !== undefined) {
-      stats.labelled += 1;
-      labelId = labels.get(label) ?? -1;
-      if (labelId === -1) stats.unknownLabels += 1;
-    }
+    const rowKey = key ?? String(stats.documents + 1);
+    let oov = 0;
+    for (let i = 0; i < ids.length; i++) if (ids[i] === lexicon.oovId) oov += 1;
+    facts.tokens = ids.length;
+    facts.oovTokens = oov;
+    const labelId = label === undefined ? null : (labels.get(label) ?? -1);
+    countRow(stats, facts, shape, labelId);
     if (shape === null || shaped === null) {
-      await sink.row(ids, ids.length, labelId, rowKey);
+      await sink.row(ids, ids.length, labelId, rowKey, facts);
       return;
-    }
-    if (ids.length > shape.length) {
-      stats.truncatedDocuments += 1;
-      stats.droppedTokens += ids.length - shape.length;
     }
     shaped.fill(0);
     const kept = shapeInto(ids, shape, shaped, 0);
-    await sink.row(shaped, kept, labelId, rowKey);
+    await sink.row(shaped, kept, labelId, rowKey, facts);
   }
   return { stats, write };
 }
