@@ -11,6 +11,7 @@ import npyjs from 'npyjs';
 import { describe, expect, it } from 'vitest';
 import { parseLexicon } from '../../src/artifact/parseLexicon.js';
 import type { Lexicon } from '../../src/lexicon/Lexicon.js';
+import { realFileSystem, replaceFileSystem } from '../../src/files/fileSystem.js';
 import { splitOf } from '../../src/split/splitOf.js';
 import { cli, freshFolderEachTest } from '../helpers/cli.js';
 
@@ -210,6 +211,31 @@ describe('encode --split into .jsonl files', () => {
       expect(row?.label).toBe(lexicon.labels.indexOf(d.topic));
       expect(row?.split).toBe(splitOf(key, SPLITS, 0));
     });
+  });
+
+  it('is all or nothing: when the last file cannot be put in place, the ones before it go back to what they were', async () => {
+    await buildDemoLexicon(tmp.path('lex.json'));
+    const flags = ['--lexicon', tmp.path('lex.json'), '-o', tmp.path('rows.jsonl'), '--split', 'train=0.8,valid=0.1,test=0.1', '--force'];
+    expect((await cli('encode', demo, ...flags)).code).toBe(0);
+    const before = await Promise.all(SPLITS.map((s) => readFile(tmp.path(`${s.name}.jsonl`))));
+    // A rename refused (EACCES, as rename(2) may answer; Linux man-pages), for test.jsonl only.
+    const restore = replaceFileSystem({
+      renameSync: (from, to) => {
+        if (String(to).endsWith('test.jsonl')) throw Object.assign(new Error('EACCES: permission denied, rename'), { code: 'EACCES', syscall: 'rename' });
+        realFileSystem.renameSync(from, to);
+      },
+    });
+    let r;
+    try {
+      r = await cli('encode', demo, ...flags, '--seed', '5');
+    } finally {
+      restore();
+    }
+    expect(r.code).toBe(1);
+    expect(r.stderr).toMatch(/^lexlock encode: .*test\.jsonl: not written: /);
+    const after = await Promise.all(SPLITS.map((s) => readFile(tmp.path(`${s.name}.jsonl`))));
+    after.forEach((bytes, i) => expect(bytes.equals(before[i] as Buffer), SPLITS[i]?.name).toBe(true));
+    expect((await readdir(tmp.dir)).sort()).toEqual(['lex.json', 'test.jsonl', 'train.jsonl', 'valid.jsonl']);
   });
 
   it('is all or nothing: an existing split file without --force stops the run before anything is written', async () => {
