@@ -4,6 +4,7 @@
 // left out under --bad-text skip: it still counts).
 import { describe, expect, it } from 'vitest';
 import { readCorpus } from '../../src/corpus/readCorpus.js';
+import { KeyCheck } from '../../src/corpus/KeyCheck.js';
 import { collect, failure, fixture, fixtureFile } from './corpusFixtures.js';
 
 const BAD = Buffer.from([0x66, 0xff, 0x0a]); // "f", an invalid byte, LF
@@ -115,5 +116,19 @@ describe('--key FIELD: the key is that field', () => {
       caught = e;
     }
     expect(caught).toMatchObject({ code: 'BAD_OPTION', message: `${path}: --key cannot be used here: ${why}; leave out --key, or use a .csv, .tsv or .jsonl corpus` });
+  });
+});
+
+describe('KeyCheck', () => {
+  it('finds a key seen before past the first Map (a Map holds at most 2^24 entries; here 2 a Map)', () => {
+    const keys = new KeyCheck('id', 2);
+    for (const [i, key] of ['a', 'b', 'c', 'd', 'e'].entries()) keys.check({ text: '', key, where: { file: 'f.csv', line: i + 2 } });
+    let caught: unknown;
+    try {
+      keys.check({ text: '', key: 'a', where: { file: 'f.csv', line: 9, row: 8 } });
+    } catch (e) {
+      caught = e;
+    }
+    expect(caught).toMatchObject({ code: 'DUPLICATE_KEY', message: 'f.csv line 9 (row 8): key "a" (field "id") is also the key of f.csv line 2; keys must be unique, so that every row traces back to one document: fix one of the two, or leave out --key to number the rows' });
   });
 });
