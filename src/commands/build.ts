@@ -65,6 +65,7 @@ lexlock tally or merge) it freezes those counts instead; the rule and corpus fla
   --encode OUT          also encode the corpus with the new lexicon, from the same reading: OUT as
                         in lexlock encode -o (.jsonl, or a folder of .npy files, which needs --length);
                         keeps 4 bytes a token in a temporary file beside -o until then
+  --key FIELD           with --encode: key column or member of the rows, as in lexlock encode --key
   -q, --quiet           no progress on stderr
 `;
 
