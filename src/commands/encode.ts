@@ -1,9 +1,10 @@
+import { resolve } from 'node:path';
 import { describeShape } from '../lexicon/Shape.js';
 import { isLexlockError, LexlockError } from '../LexlockError.js';
 import { readCorpus } from '../corpus/readCorpus.js';
 import { loadLexicon } from '../files/loadLexicon.js';
 import type { EncodedSource } from '../output/EncodedOutput.js';
-import { isJsonl } from '../output/EncodedOutput.js';
+import { isJsonl, outputDestinations } from '../output/EncodedOutput.js';
 import { writeEncoded } from '../pipeline/writeEncoded.js';
 import { parseSplits } from '../split/parseSplits.js';
 import { DEFAULT_SEED, type SplitPlan } from '../split/Split.js';
@@ -64,6 +65,13 @@ export async function encode(argv: readonly string[], io: Io): Promise<number> {
   if (output === undefined) throw new LexlockError('USAGE_MISSING', '-o/--output is required: a .jsonl file or a folder for .npy files', { field: '--output' });
   assertOutputName(output, '--output');
   const split = splitFlags(args);
+  for (const destination of outputDestinations(output, split)) {
+    for (const [input, what] of [[corpus, 'the corpus being read'], [lexiconPath, 'the lexicon']] as const) {
+      if (resolve(destination) === resolve(input)) {
+        throw new LexlockError('USAGE_BAD_VALUE', `--output: ${destination} is ${what}; name another output`, { field: '--output' });
+      }
+    }
+  }
   const noLabels = noLabelsFlag(args);
   const flagShape = shapeFromFlags(args);
   const force = args.switches.has('force');

@@ -263,6 +263,16 @@ describe('--split, --seed and --key refusals', () => {
     expect((await readdir(tmp.dir)).sort()).toEqual(['lex.json', 'm.csv']);
   });
 
+  it('an output that is the corpus or the lexicon is a usage error, --force or not', async () => {
+    await writeFile(tmp.path('train.jsonl'), '{"text":"late ferry"}\n');
+    await cli('build', tmp.path('train.jsonl'), '-o', tmp.path('lex.json'));
+    const split = await cli('encode', tmp.path('train.jsonl'), '--lexicon', tmp.path('lex.json'), '-o', tmp.path('rows.jsonl'), '--split', 'train=0.5,test=0.5', '--force');
+    expect([split.code, split.stderr]).toEqual([2, `lexlock encode: --output: ${tmp.path('train.jsonl')} is the corpus being read; name another output\n`]);
+    const same = await cli('encode', tmp.path('train.jsonl'), '--lexicon', tmp.path('lex.json'), '-o', tmp.path('train.jsonl'), '--force');
+    expect([same.code, same.stderr]).toEqual([2, `lexlock encode: --output: ${tmp.path('train.jsonl')} is the corpus being read; name another output\n`]);
+    expect(await readFile(tmp.path('train.jsonl'), 'utf8')).toBe('{"text":"late ferry"}\n');
+  });
+
   it('a duplicate key stops encode with exit 1 naming both places, and nothing is written', async () => {
     await writeFile(tmp.path('m.csv'), 'id,text\nA-1,late ferry\nA-2,kind crew\nA-1,late again\n');
     await cli('build', tmp.path('m.csv'), '-o', tmp.path('lex.json'), '--length', '4');
