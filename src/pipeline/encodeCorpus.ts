@@ -1,3 +1,4 @@
+import { LexlockError } from '../LexlockError.js';
 import type { Lexicon } from '../lexicon/Lexicon.js';
 import { shapeInto, type Shape } from '../lexicon/Shape.js';
 import type { LabelledText } from '../tally/Tally.js';
@@ -97,7 +98,7 @@ export async function encodeCorpus(
       batchesOf(documents, (_text, doc) => keys.push(keyOf(doc))),
       (b) => pool.submit(b),
       async (batch, reply) => {
-        if (!('encoded' in reply)) throw new Error(`batch ${batch.id}: an encode worker answered without ids`);
+        if (!('encoded' in reply)) throw lexlockBug(`an encode worker answered batch ${batch.id} without ids`);
         const { ids, lengths } = reply.encoded;
         let at = 0;
         for (let i = 0; i < lengths.length; i++) {
@@ -112,6 +113,11 @@ export async function encodeCorpus(
     await pool.close();
   }
   return stats;
+}
+
+/** An error that can only come from a mistake in lexlock itself. */
+export function lexlockBug(what: string): LexlockError {
+  return new LexlockError('IO', `${what}; this is a lexlock bug, please report it with the command you ran`);
 }
 
 /** A document's own key, or undefined (then its place in the stream keys it). */
@@ -132,7 +138,7 @@ export class KeyQueue {
   }
 
   take(): string | undefined {
-    if (this.head >= this.keys.length) throw new Error('a row came back for a document whose key was never noted');
+    if (this.head >= this.keys.length) throw lexlockBug('a row came back for a document whose key was never noted');
     const key = this.keys[this.head];
     this.head += 1;
     if (this.head >= 4096 && this.head * 2 >= this.keys.length) {

@@ -9,7 +9,7 @@ import { IN_FLIGHT_PER_THREAD, batchesOf, inOrder } from '../workers/batches.js'
 import type { WorkerReply } from '../workers/messages.js';
 import { WorkerPool } from '../workers/WorkerPool.js';
 import { LoopTurns } from './loopTurns.js';
-import { KeyQueue, keyOf, rowWriter, type EncodableDocument, type EncodeStats, type RowSink } from './encodeCorpus.js';
+import { KeyQueue, keyOf, lexlockBug, rowWriter, type EncodableDocument, type EncodeStats, type RowSink } from './encodeCorpus.js';
 import { snippetKeeper, type CorpusTally, type TallyCorpusOptions } from './tallyCorpus.js';
 
 /** A tally that also kept every document as token numbers, to encode them once a lexicon is made. */
@@ -106,7 +106,7 @@ export async function tallyAndRecord(
           (b) => pool.submit(b),
           async (batch, reply) => {
             merge(reply);
-            if (!('numbered' in reply) || reply.numbered === undefined) throw new Error(`batch ${batch.id}: a tally worker answered without token numbers`);
+            if (!('numbered' in reply) || reply.numbered === undefined) throw lexlockBug(`a tally worker answered batch ${batch.id} without token numbers`);
             const { numbers, lengths, group } = reply.numbered;
             let at = 0;
             for (let i = 0; i < lengths.length; i++) {
