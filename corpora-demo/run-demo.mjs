@@ -22,7 +22,8 @@ const encoded = at('demo-out/ferry-encoded');
 const steps = [
   // 2,000 tokens of about 4,000 distinct; rows of 64 ids (p95 of the lengths is 57), zeros in front.
   ['build', corpus, '-o', lexicon, '--label', 'topic', '--cap', '2000', '--length', '64', '--pad', 'start', '--force'],
-  ['encode', corpus, '--lexicon', lexicon, '-o', encoded, '--force'],
+  // Keys from the id column; 80/10/10 by a hash of each key, so a message keeps its split as the corpus grows.
+  ['encode', corpus, '--lexicon', lexicon, '-o', encoded, '--key', 'id', '--split', 'train=0.8,valid=0.1,test=0.1', '--force'],
   // Messages the lexicon never saw: their OOV rate is the one to watch after launch.
   ['encode', heldOut, '--lexicon', lexicon, '-o', at('demo-out/held-out.jsonl'), '--force'],
   ['verify', lexicon],
@@ -32,4 +33,4 @@ for (const argv of steps) {
   const code = await run(argv, io);
   if (code !== 0) process.exit(code);
 }
-console.log(`\nDone: ${encoded}/ids.npy, lengths.npy and labels.npy are ready for a training script.`);
+console.log(`\nDone: ${encoded}/train, valid and test each hold ids.npy, lengths.npy, labels.npy and keys.jsonl, ready for a training script.`);

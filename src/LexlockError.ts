@@ -23,6 +23,8 @@ export type LexlockErrorCode =
   | 'JSONL_NOT_JSON'
   | 'JSONL_NOT_OBJECT'
   | 'MISSING_FIELD'
+  | 'MISSING_LABELS'
+  | 'DUPLICATE_KEY'
   | 'BAD_FIELD_TYPE'
   | 'EMPTY_CORPUS'
   | 'CORPUS_NOT_FOUND'

@@ -49,7 +49,7 @@ const COMMANDS: Record<string, { run: (argv: readonly string[], io: Io) => Promi
 export const MAIN_HELP = `lexlock ${VERSION}: one fingerprinted lexicon file for text -> ids, everywhere
 
   lexlock build <corpus> -o <lexicon.json>        count a corpus, write a lexicon
-  lexlock encode <corpus> --lexicon <file> -o <out>  ids as .jsonl or a folder of .npy files
+  lexlock encode <corpus> --lexicon <file> -o <out>  keyed ids as .jsonl or .npy files; --split train=0.8,...
   lexlock verify <lexicon.json>                   check schema, fingerprint and canaries
   lexlock peek <lexicon.json> [text...]           a text token by token: ids, OOV, cuts, zeros, the row
   lexlock audit <corpus> --lexicon <file> | --cap N  what a cap and a length cost; drift; --report page

@@ -19,6 +19,10 @@ export { Lexicon, PADDING_ID, type Batch, type EncodeOptions, type EncodeBytesOp
 export { BAD_TEXT_POLICIES, type BadTextPolicy } from './artifact/badTextPolicy.js';
 export { peekText, type TextPeek, type PeekedToken } from './lexicon/peekText.js';
 export { checkShape, describeShape, SHAPE_ENDS, type Shape, type ShapeEnd } from './lexicon/Shape.js';
+export { DEFAULT_SEED, type Split, type SplitPlan } from './split/Split.js';
+export { splitOf, splitChooser, splitPoint } from './split/splitOf.js';
+export { parseSplits } from './split/parseSplits.js';
+export { checkSplits } from './split/checkSplits.js';
 export { parseLexicon, type ParseLexiconOptions } from './artifact/parseLexicon.js';
 export { fetchLexicon } from './artifact/fetchLexicon.js';
 export { serializeLexicon } from './artifact/serializeLexicon.js';

@@ -11,3 +11,11 @@ const utf8 = new TextEncoder();
 export function sha256Hex(data: string | Uint8Array): string {
   return bytesToHex(nobleSha256(typeof data === 'string' ? utf8.encode(data) : data));
 }
+
+/**
+ * SHA-256 (FIPS 180-4) of raw bytes: the 32 bytes of the digest. Synchronous and browser-safe.
+ * @example sha256Bytes(new TextEncoder().encode('abc'))[0] // 0xba
+ */
+export function sha256Bytes(data: Uint8Array): Uint8Array {
+  return nobleSha256(data);
+}

@@ -18,6 +18,7 @@ import { corpusBytes } from './corpusBytes.js';
 import type { Io } from './Io.js';
 import { parseArgs, positionals, valueOf, wholeNumberFlag, type ParsedArgs } from './parseArgs.js';
 import { createProgress } from './progress.js';
+import { assertFolderLabelled, assertLabelsRead, NO_LABELS_FLAG, noLabelsFlag, withoutLabels } from './labelsFlag.js';
 import { CORPUS_FLAGS, RULE_FLAGS, SHAPE_FLAGS, corpusOptions, rulesFromFlags, shapeFromFlags, lexiconFieldDefaults, threadsFlag } from './sharedFlags.js';
 
 /** `lexlock audit --help`. */
@@ -34,6 +35,7 @@ per label, the caps and lengths that would cover 90/95/99 %, the most frequent O
   --length L            count truncation and padding at length L (default: the lexicon's shape)
   --pad start|end, --cut start|end   with --length: where the zeros go, which end a long document loses (default end, end)
   --text FIELD, --label FIELD, --bad-text fail|replace|skip, --record-limit MiB   as in lexlock build
+  --no-labels           audit without labels (a lexicon with labels otherwise needs them read)
   --json                print the report as one JSON object
   --report FILE.html    also write a self-contained HTML page with the charts (--force to overwrite)
   --max-oov R           exit 3 when the OOV rate is above R (a share such as 0.05, or 5%)
@@ -69,6 +71,7 @@ export async function audit(argv: readonly string[], io: Io): Promise<number> {
     force: { kind: 'switch' },
     'max-oov': { kind: 'value' },
     'max-truncated': { kind: 'value' },
+    ...NO_LABELS_FLAG,
     ...CORPUS_FLAGS,
     ...RULE_FLAGS,
     ...SHAPE_FLAGS,
@@ -91,11 +94,12 @@ export async function audit(argv: readonly string[], io: Io): Promise<number> {
       throw new LexlockError('USAGE_BAD_VALUE', `--${given} goes with --cap; with --lexicon the lexicon fixes the text rules`, { field: `--${given}` });
     }
   }
+  const noLabels = noLabelsFlag(args);
   const gates: Gates = { maxOov: shareFlag(args, 'max-oov'), maxTruncated: shareFlag(args, 'max-truncated') };
   const flagShape = shapeFromFlags(args);
   const reportPath = valueOf(args, 'report');
   // The report's lock is held from here on: a second run writing the same page fails at once.
-  return withLocks(reportPath === undefined ? [] : [reportPath], () => auditHolding({ args, io, corpus, lexiconPath, cap, gates, flagShape, reportPath }));
+  return withLocks(reportPath === undefined ? [] : [reportPath], () => auditHolding({ args, io, corpus, lexiconPath, cap, gates, flagShape, reportPath, noLabels }));
 }
 
 /** The rest of `lexlock audit`, once the flags are checked and the report's lock is held. */
@@ -108,8 +112,9 @@ async function auditHolding(context: {
   gates: Gates;
   flagShape: Shape | null;
   reportPath: string | undefined;
+  noLabels: boolean;
 }): Promise<number> {
-  const { args, io, corpus, lexiconPath, cap, gates, flagShape, reportPath } = context;
+  const { args, io, corpus, lexiconPath, cap, gates, flagShape, reportPath, noLabels } = context;
   if (reportPath !== undefined) await assertWritable(reportPath, args.switches.has('force'));
   const quiet = args.switches.has('quiet');
   const threads = threadsFlag(args, await corpusBytes(corpus));
@@ -119,13 +124,16 @@ async function auditHolding(context: {
   let options;
   if (lexiconPath !== undefined) {
     lexicon = await loadLexicon(lexiconPath);
-    options = corpusOptions(args, lexiconFieldDefaults(corpus, lexicon));
+    const defaults = lexiconFieldDefaults(corpus, lexicon);
+    options = corpusOptions(args, noLabels ? { text: defaults.text } : defaults);
+    assertLabelsRead(corpus, readCorpus(corpus, options).kind, options.label, lexicon, lexiconPath, noLabels, 'audit without labels');
   } else {
     options = corpusOptions(args);
     const rules = rulesFromFlags(args);
     const counting = createProgress(io, 'audit 1/2 counting', { quiet, totalBytes });
     try {
-      const { tally } = await tallyCorpus(readCorpus(corpus, { ...options, onProgress: (p) => counting.update(p) }), rules, { threads });
+      const counted = readCorpus(corpus, { ...options, onProgress: (p) => counting.update(p) });
+      const { tally } = await tallyCorpus(noLabels && counted.kind === 'folder' ? withoutLabels(counted) : counted, rules, { threads });
       lexicon = freeze(tally, { cap: cap ?? null, minCount: wholeNumberFlag(args, 'min-count', 1) ?? 1, shape: flagShape });
     } finally {
       counting.done();
@@ -136,9 +144,13 @@ async function auditHolding(context: {
   const reader = readCorpus(corpus, { ...options, onProgress: (p) => progress.update(p) });
   let report: CoverageReport;
   try {
-    report = await auditOnThreads(reader, lexicon, { shape, drift: lexiconPath !== undefined, threads });
+    report = await auditOnThreads(noLabels && reader.kind === 'folder' ? withoutLabels(reader) : reader, lexicon, { shape, drift: lexiconPath !== undefined, threads });
   } finally {
     progress.done();
+  }
+  if (lexiconPath !== undefined) {
+    const labelled = Object.values(report.labels).reduce((sum, l) => sum + l.documents, 0);
+    assertFolderLabelled(corpus, reader.kind, labelled, lexicon, lexiconPath, noLabels, 'audit without labels');
   }
 
   if (reportPath !== undefined) {

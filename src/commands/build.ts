@@ -23,7 +23,9 @@ import { RECORD_LIMIT_DEFAULT } from '../corpus/recordLimit.js';
 import { limitChunkMemo } from '../rules/fast/scanWordTokens.js';
 import { describeLexiconText } from './describeLexicon.js';
 import type { Io } from './Io.js';
-import { assertOutputName, assertOutputWritable, encodedSummary, isJsonl, openEncodedOutput, type EncodedOutput, type EncodedSource } from './encodedOutput.js';
+import { assertOutputWritable, isJsonl, openEncodedOutput, type EncodedOutput, type EncodedPart, type EncodedSource } from '../output/EncodedOutput.js';
+import type { CorpusKind } from '../corpus/corpusKind.js';
+import { assertOutputName, encodedSummary } from './encodedOutput.js';
 import { count, pairs } from './format.js';
 import { parseArgs, positionals, valueOf, wholeNumberFlag, type ParsedArgs } from './parseArgs.js';
 import { corpusBytes } from './corpusBytes.js';
@@ -63,6 +65,7 @@ lexlock tally or merge) it freezes those counts instead; the rule and corpus fla
   --encode OUT          also encode the corpus with the new lexicon, from the same reading: OUT as
                         in lexlock encode -o (.jsonl, or a folder of .npy files, which needs --length);
                         keeps 4 bytes a token in a temporary file beside -o until then
+  --key FIELD           with --encode: key column or member of the rows, as in lexlock encode --key
   -q, --quiet           no progress on stderr
 `;
 
@@ -78,6 +81,7 @@ export async function build(argv: readonly string[], io: Io): Promise<number> {
     force: { kind: 'switch' },
     'memory-limit': { kind: 'value' },
     encode: { kind: 'value' },
+    key: { kind: 'value' },
     ...CORPUS_FLAGS,
     ...RULE_FLAGS,
     ...SHAPE_FLAGS,
@@ -100,6 +104,9 @@ export async function build(argv: readonly string[], io: Io): Promise<number> {
   const options = corpusOptions(args);
   const encodeTo = valueOf(args, 'encode');
   if (encodeTo !== undefined) refuseWithEncode(args, fromTally, encodeTo, shape !== null);
+  else if (args.values.has('key') && !fromTally) {
+    throw new LexlockError('USAGE_BAD_VALUE', '--key goes with --encode: it names the field that keys the encoded rows; add --encode OUT, or leave out --key', { field: '--key' });
+  }
   if (encodeTo !== undefined && resolve(encodeTo) === resolve(output)) {
     throw new LexlockError('USAGE_BAD_VALUE', `--encode ${encodeTo}: that is where -o puts the lexicon; name another output`, { field: '--encode' });
   }
@@ -129,10 +136,11 @@ async function buildHolding(context: {
 }): Promise<number> {
   const { args, io, corpus, output, cap, minCount, oov, shape, force, fromTally, rules, options, encodeTo } = context;
   await assertWritable(output, force);
-  if (encodeTo !== undefined) await assertOutputWritable(encodeTo, force);
+  if (encodeTo !== undefined) await assertOutputWritable(encodeTo, force, null);
 
   let counted: TallyFile;
   let stats = { replaced: 0, skipped: 0 };
+  let kind: CorpusKind = 'txt';
   let recorded: RecordedTally | null = null;
   let measured: MeasuredFit | undefined;
   if (fromTally) {
@@ -167,6 +175,7 @@ async function buildHolding(context: {
       progress.done();
     }
     stats = reader.stats;
+    kind = reader.kind;
     counted = {
       tally: result.tally,
       snippets: result.snippets,
@@ -200,9 +209,9 @@ async function buildHolding(context: {
   if (recorded === null || encodeTo === undefined) {
     await writeWhole(output, serializeLexicon(lexicon));
   } else {
-    const source = { lexicon, lexiconPath: output, corpus, readStats: stats };
-    const encoded = await writeBoth(output, lexicon, recorded, encodeTo, source);
-    out += `wrote ${encodeTo}\n${pairs(encodedSummary(encoded, shape, source))}`;
+    const source: EncodedSource = { lexicon, lexiconPath: output, corpus, badText: options.badText, keyField: options.key ?? null, readStats: stats };
+    const { stats: encoded, parts } = await writeBoth(output, lexicon, recorded, encodeTo, source);
+    out += `wrote ${encodeTo}\n${pairs(encodedSummary(encoded, parts, shape, source, kind, null))}`;
   }
   io.stdout.write(out);
   return 0;
@@ -214,14 +223,14 @@ async function buildHolding(context: {
  * then are both put in place together (commitAll: the encoded output first, so a failure of the
  * lexicon's rename can still put the old encoded output back).
  */
-async function writeBoth(output: string, lexicon: Lexicon, recorded: RecordedTally, encodeTo: string, source: EncodedSource): Promise<EncodeStats> {
+async function writeBoth(output: string, lexicon: Lexicon, recorded: RecordedTally, encodeTo: string, source: EncodedSource): Promise<{ stats: EncodeStats; parts: EncodedPart[] }> {
   let lexiconFile: AtomicFile | null = null;
   let sink: EncodedOutput | null = null;
   try {
     lexiconFile = await openAtomic(output);
     await lexiconFile.write(new TextEncoder().encode(serializeLexicon(lexicon)));
     await lexiconFile.seal();
-    sink = await openEncodedOutput(encodeTo, lexicon.shape, source);
+    sink = await openEncodedOutput(encodeTo, lexicon.shape, source, null);
     const encoded = await recorded.encode(lexicon, lexicon.shape, sink);
     const documents = lexicon.fit?.documents ?? recorded.tally.documents;
     if (encoded.documents !== recorded.tally.documents || documents !== recorded.tally.documents) {
@@ -231,9 +240,9 @@ async function writeBoth(output: string, lexicon: Lexicon, recorded: RecordedTal
         { file: encodeTo },
       );
     }
-    await sink.finish(encoded);
-    await commitAll([await sink.commitStep(), lexiconFile.commitStep()]);
-    return encoded;
+    const parts = await sink.finish(encoded);
+    await commitAll([...(await sink.commitSteps()), lexiconFile.commitStep()]);
+    return { stats: encoded, parts };
   } catch (e) {
     await sink?.abort();
     await lexiconFile?.abort();
@@ -323,7 +332,7 @@ function refuseCorpusFlags(values: ReadonlyMap<string, string[]>): void {
       throw new LexlockError('USAGE_BAD_VALUE', `--${name} cannot be used with a tally: the tally fixes the rules it was counted under; leave it out, or count the parts again with lexlock tally --${name}`, { field: `--${name}` });
     }
   }
-  for (const name of ['text', 'label', 'bad-text', 'record-limit']) {
+  for (const name of ['text', 'label', 'key', 'bad-text', 'record-limit']) {
     if (values.has(name)) {
       throw new LexlockError('USAGE_BAD_VALUE', `--${name} cannot be used with a tally: its corpus was read when it was counted; leave it out, or pass it to lexlock tally`, { field: `--${name}` });
     }

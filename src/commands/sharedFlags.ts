@@ -55,11 +55,13 @@ export function corpusOptions(args: ParsedArgs, defaults: { text?: string | unde
   const badText = choiceFlag(args, 'bad-text', BAD_TEXT_POLICIES) ?? defaults.badText ?? DEFAULT_BAD_TEXT;
   const text = valueOf(args, 'text') ?? defaults.text;
   const label = valueOf(args, 'label') ?? defaults.label;
+  const key = valueOf(args, 'key');
   const recordLimit = recordLimitFlag(args);
   return {
     badText,
     ...(text === undefined ? {} : { text }),
     ...(label === undefined ? {} : { label }),
+    ...(key === undefined ? {} : { key }),
     ...(recordLimit === undefined ? {} : { maxRecordBytes: recordLimit }),
   };
 }

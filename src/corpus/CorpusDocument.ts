@@ -12,7 +12,7 @@ export interface CorpusDocument {
    * What traces a row back to its document, unique in the corpus: the path relative to the folder
    * (with `/`) for a folder corpus, the line number for `.txt`, the data-row number for CSV/TSV/JSONL
    * (the header is row 0; blank lines are no rows; a row left out for bad text still counts), as a
-   * decimal string.
+   * decimal string; or, read with a key field (`CorpusOptions.key`), that field's value.
    */
   key: string;
   where: Where;

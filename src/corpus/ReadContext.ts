@@ -9,6 +9,8 @@ export interface ReadContext {
   readonly text: string;
   /** Label field (csv/tsv/jsonl); undefined for no labels. */
   readonly label: string | undefined;
+  /** Key field (csv/tsv/jsonl); undefined for keys numbered by the reader (see CorpusDocument.key). */
+  readonly key: string | undefined;
   readonly badText: BadTextPolicy;
   /** Bytes per read. */
   readonly chunkSize: number;

@@ -1,5 +1,6 @@
 import { inputError } from '../LexlockError.js';
 import type { CorpusDocument } from './CorpusDocument.js';
+import { KeyCheck } from './KeyCheck.js';
 import type { ReadContext } from './ReadContext.js';
 
 /** How often progress is reported: every this many bytes read or documents handed out. */
@@ -13,7 +14,10 @@ export type ProgressCallback = (p: { bytes: number; documents: number }) => void
  * Hands out the documents of a reader's batches one at a time: counts `stats.documents`, reports
  * progress now and then, and once the batches run out with no document handed out throws
  * `EMPTY_CORPUS` with the reader's reason, e.g. `reviews.csv: no documents (only a header row); ...`.
- * Cheaper per document than a generator over generators; `return()` closes the file early.
+ * With a key field (`context.key`), it is the one place keys are checked: an empty key or one seen
+ * before is refused (`BAD_FIELD_TYPE`, `DUPLICATE_KEY` naming both lines), so it keeps every key read
+ * so far with the line of its document (see {@link KeyCheck}). Keys the readers number cannot collide
+ * and are not kept. Cheaper per document than a generator over generators; `return()` closes the file early.
  */
 export function documentIterator(
   batches: AsyncGenerator<CorpusDocument[], void, undefined>,
@@ -21,6 +25,7 @@ export function documentIterator(
   onProgress: ProgressCallback | undefined,
 ): AsyncIterator<CorpusDocument> {
   const { stats } = context;
+  const keys = context.key === undefined ? null : new KeyCheck(context.key);
   let batch: CorpusDocument[] = [];
   let next = 0;
   let finished = false;
@@ -54,6 +59,16 @@ export function documentIterator(
       }
       const document = batch[next]!;
       next += 1;
+      if (keys !== null) {
+        try {
+          keys.check(document);
+        } catch (e) {
+          finished = true;
+          batch = [];
+          await batches.return(undefined);
+          throw e;
+        }
+      }
       stats.documents += 1;
       if (onProgress !== undefined && (stats.documents >= reportAtDocuments || stats.bytes >= reportAtBytes)) report();
       return { done: false, value: document };

@@ -25,6 +25,13 @@ export interface CorpusOptions {
   text?: string;
   /** Label field for csv/tsv/jsonl; absent means no labels. */
   label?: string;
+  /**
+   * Key field for csv/tsv/jsonl: each document's key is that field's value (JSONL: a string, or a
+   * whole number as its decimal digits), which must be unique and not empty (`DUPLICATE_KEY` names
+   * both lines). Absent: keys are numbered as {@link CorpusDocument.key} says. Checking uniqueness
+   * keeps every key read so far (about 50 to 90 bytes a key of 8 to 36 characters).
+   */
+  key?: string;
   /** Documents with invalid UTF-8: stop (`fail`, the default), decode with U+FFFD (`replace`), or leave out (`skip`). */
   badText?: BadTextPolicy;
   /** Called now and then (every 1 MiB read or 1000 documents, and at the end) with the counts so far. */
@@ -49,6 +56,10 @@ export interface CorpusReader extends AsyncIterable<CorpusDocument> {
   readonly kind: CorpusKind;
   /** The corpus path as given. */
   readonly path: string;
+  /** The bad-text policy it reads under. */
+  readonly badText: BadTextPolicy;
+  /** The key field it reads keys from, or null when keys are numbered (see {@link CorpusDocument.key}). */
+  readonly keyField: string | null;
 }
 
 const DEFAULT_CHUNK = 1 << 20;
@@ -82,6 +93,10 @@ export function readCorpus(path: string, options: CorpusOptions = {}): CorpusRea
     const instead = kind === 'txt' ? 'a .txt corpus has no fields' : 'a folder corpus takes its labels from its subfolders';
     throw inputError('BAD_OPTION', { file: path }, `--label cannot be used here: ${instead}; leave out --label, or use a .csv, .tsv or .jsonl corpus`);
   }
+  if (options.key !== undefined && (kind === 'txt' || kind === 'folder')) {
+    const instead = kind === 'txt' ? 'a .txt corpus has no fields; its keys are line numbers' : 'a folder corpus keys its documents by their paths below the folder';
+    throw inputError('BAD_OPTION', { file: path }, `--key cannot be used here: ${instead}; leave out --key, or use a .csv, .tsv or .jsonl corpus`);
+  }
   const chunkSize = options.chunkSize ?? DEFAULT_CHUNK;
   if (!Number.isSafeInteger(chunkSize) || chunkSize < 1) {
     throw inputError('BAD_OPTION', { file: path }, `chunk size ${chunkSize} is not a whole number of bytes above 0`);
@@ -96,6 +111,8 @@ export function readCorpus(path: string, options: CorpusOptions = {}): CorpusRea
     stats,
     kind,
     path,
+    badText,
+    keyField: options.key ?? null,
     [Symbol.asyncIterator]() {
       stats.documents = 0;
       stats.replaced = 0;
@@ -105,6 +122,7 @@ export function readCorpus(path: string, options: CorpusOptions = {}): CorpusRea
         file: path,
         text: options.text ?? 'text',
         label: options.label,
+        key: options.key,
         badText,
         chunkSize,
         maxRecordBytes,

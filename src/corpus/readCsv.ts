@@ -13,7 +13,7 @@ const START_ADVICE = 'start it with a header row naming the columns, then put on
 
 /**
  * A `.csv` (delimiter `,`) or `.tsv` (tab) corpus: a header row, then one document a row, text and
- * label taken from the named columns. {@link CsvRecordScanner} finds records, their places and bad
+ * label (and the key, with a key column) taken from the named columns. {@link CsvRecordScanner} finds records, their places and bad
  * bytes on the bytes; fast-csv splits the fields. Row numbers count data records (the header is row
  * 0; blank lines are not rows; rows skipped for bad bytes still count). Yields one batch of documents
  * per group of lines read (about 64 KiB); when something is wrong, the documents before it come first.
@@ -80,14 +80,14 @@ export async function* readCsv(context: ReadContext, delimiter: ',' | '\t'): Asy
         const values = split[i]!;
         const start = starts[i]!;
         if (start.row === undefined) {
-          columns = csvColumns(values, context.text, context.label, placeOf(start));
+          columns = csvColumns(values, context, placeOf(start));
           continue;
         }
         const where = placeOf(start);
         const c = columns!; // the header is always the first record split
         if (values.length !== c.count) throw fieldCountError(values.length, c.count, where);
         const text = values[c.text]!;
-        const key = String(start.row);
+        const key = c.key === undefined ? String(start.row) : values[c.key]!;
         batch.push(c.label === undefined ? { text, key, where } : { text, label: values[c.label]!, key, where });
       }
     } catch (e) {

@@ -8,12 +8,16 @@ import { readLineCorpus } from './readLineCorpus.js';
  * A `.jsonl`/`.ndjson` corpus: one JSON object a line, the text in field `context.text` and the label
  * in `context.label`, both JSON strings. Anything else is `BAD_FIELD_TYPE` naming the line, a number
  * label included: turned into a string, `1` and `"1"` would be one label and `1e400` would be
- * `"Infinity"`. A missing or null label is `MISSING_FIELD`. Lines of white space only are skipped.
+ * `"Infinity"`. A missing or null label is `MISSING_FIELD`. With `context.key`, the key is that
+ * member: a JSON string, or a whole number JavaScript holds exactly (up to 2^53 - 1 either side), as
+ * its decimal digits (`42` gives "42"; JSON.parse reads `42.0` and `4.2e1` as the same number);
+ * anything else is `BAD_FIELD_TYPE`, a missing or null one `MISSING_FIELD`. Lines of white space only
+ * are skipped.
  */
 export function readJsonl(context: ReadContext): AsyncGenerator<CorpusDocument[], void, undefined> {
   return readLineCorpus(context, {
     blank: isBlank,
-    document: (json, where, row) => documentOf(json, where, String(row), context),
+    document: (json, where, row) => documentOf(json, where, row, context),
     reason: 'the file has no JSON lines',
     advice: 'put one JSON object on each line',
   });
@@ -28,7 +32,7 @@ function isBlank(bytes: Buffer): boolean {
   return true;
 }
 
-function documentOf(json: string, where: Where, key: string, context: ReadContext): CorpusDocument {
+function documentOf(json: string, where: Where, row: number, context: ReadContext): CorpusDocument {
   let value: unknown;
   try {
     value = JSON.parse(json);
@@ -54,6 +58,7 @@ function documentOf(json: string, where: Where, key: string, context: ReadContex
       `field ${JSON.stringify(context.text)} is ${jsonKind(text)}, not a string; store the text as a JSON string`,
     );
   }
+  const key = context.key === undefined ? String(row) : keyOf(record, context.key, where);
   if (context.label === undefined) return { text, key, where };
   const raw = member(record, context.label, where, 'label');
   if (raw === null) {
@@ -68,7 +73,23 @@ function documentOf(json: string, where: Where, key: string, context: ReadContex
   throw inputError('BAD_FIELD_TYPE', { ...where, field: context.label }, `field ${JSON.stringify(context.label)} is ${jsonKind(raw)}, not a string; labels are strings: ${fix}`);
 }
 
-function member(record: Record<string, unknown>, name: string, where: Where, role: 'text' | 'label'): unknown {
+/** The key member of a line: a JSON string, or a whole number JavaScript holds exactly, as its decimal digits. */
+function keyOf(record: Record<string, unknown>, name: string, where: Where): string {
+  const raw = member(record, name, where, 'key');
+  if (typeof raw === 'string') return raw;
+  if (typeof raw === 'number' && Number.isSafeInteger(raw)) return String(raw);
+  if (raw === null) {
+    throw inputError('MISSING_FIELD', { ...where, field: name }, `field ${JSON.stringify(name)} is null; give every line a key, or leave out --key to number the rows`);
+  }
+  const what = typeof raw === 'number' ? 'a JSON number that is not a whole number up to 2^53 - 1 (9007199254740991) either side' : jsonKind(raw);
+  throw inputError(
+    'BAD_FIELD_TYPE',
+    { ...where, field: name },
+    `field ${JSON.stringify(name)} is ${what}; a key is a JSON string or a whole number: store long or odd ids as strings, in quotes`,
+  );
+}
+
+function member(record: Record<string, unknown>, name: string, where: Where, role: 'text' | 'label' | 'key'): unknown {
   if (Object.hasOwn(record, name)) return record[name];
   const names = Object.keys(record);
   const has = names.length === 0 ? 'this line has no fields' : `this line has ${quotedNames(names)}`;

@@ -4,12 +4,12 @@ import type { Lexicon } from '../lexicon/Lexicon.js';
 import type { Shape } from '../lexicon/Shape.js';
 import { tokenize } from '../rules/tokenize.js';
 import type { TextRules } from '../rules/TextRules.js';
-import { Tally, type LabelledText } from '../tally/Tally.js';
+import { Tally } from '../tally/Tally.js';
 import { IN_FLIGHT_PER_THREAD, batchesOf, inOrder } from '../workers/batches.js';
 import type { WorkerReply } from '../workers/messages.js';
 import { WorkerPool } from '../workers/WorkerPool.js';
 import { LoopTurns } from './loopTurns.js';
-import { rowWriter, type EncodeStats, type RowSink } from './encodeCorpus.js';
+import { KeyQueue, keyOf, lexlockBug, rowWriter, type EncodableDocument, type EncodeStats, type RowSink } from './encodeCorpus.js';
 import { snippetKeeper, type CorpusTally, type TallyCorpusOptions } from './tallyCorpus.js';
 
 /** A tally that also kept every document as token numbers, to encode them once a lexicon is made. */
@@ -41,9 +41,9 @@ class LabelNumbers {
 }
 
 /**
- * Tallies a stream of documents as `tallyCorpus` does and writes each document's token numbers to a
- * spill file at `spillPath`, 4 bytes a token, so the corpus can be encoded after freezing without a
- * second pass. Numbers are those of the final tally (`Tally.numberOf`) for documents counted on this
+ * Tallies a stream of documents as `tallyCorpus` does and writes each document's token numbers (4
+ * bytes a token) and key to a spill file at `spillPath`, so the corpus can be encoded after freezing
+ * without a second pass, its rows keyed as `encodeCorpus` keys them. Numbers are those of the final tally (`Tally.numberOf`) for documents counted on this
  * thread; a worker's are those of the counts it keeps, mapped once it sends them. The caller removes
  * the file with `discard` if it does not encode.
  * @example
@@ -52,7 +52,7 @@ class LabelNumbers {
  * await recorded.encode(lexicon, lexicon.shape, { row: (ids) => void train.push([...ids]) });
  */
 export async function tallyAndRecord(
-  documents: AsyncIterable<string | LabelledText> | Iterable<string | LabelledText>,
+  documents: AsyncIterable<EncodableDocument> | Iterable<EncodableDocument>,
   rules: TextRules,
   spillPath: string,
   options: TallyCorpusOptions = {},
@@ -67,9 +67,11 @@ export async function tallyAndRecord(
   try {
     if (threads <= 1) {
       let numbers = new Int32Array(1024);
+      let place = 0;
       const turns = new LoopTurns({ rules, strings: true });
       try {
         for await (const doc of documents) {
+          place += 1;
           const text = typeof doc === 'string' ? doc : doc.text;
           const label = typeof doc === 'string' ? undefined : doc.label;
           const wait = turns.before(text);
@@ -78,13 +80,16 @@ export async function tallyAndRecord(
           if (tokens.length > numbers.length) numbers = new Int32Array(Math.max(tokens.length, numbers.length * 2));
           tally.addNumbered(tokens, label, numbers);
           keeper.see(text);
-          await spill.add(labels.of(label), 0, numbers, tokens.length);
+          await spill.add(labels.of(label), 0, numbers, tokens.length, keyOf(doc) ?? String(place));
         }
       } finally {
         turns.done();
       }
     } else {
       const pool = WorkerPool.start({ kind: 'tally', rules, numbered: true }, threads, { tally });
+      // Keys stay on this thread: noted as documents are batched, taken back as their numbers come in order.
+      const keys = new KeyQueue();
+      let place = 0;
       const merge = (reply: WorkerReply) => {
         if (!('tally' in reply)) return;
         const map = new Int32Array(reply.tally.types.length);
@@ -93,16 +98,20 @@ export async function tallyAndRecord(
       };
       try {
         await inOrder(
-          batchesOf(documents, keeper.see),
+          batchesOf(documents, (text, doc) => {
+            keeper.see(text);
+            place += 1;
+            keys.push(keyOf(doc) ?? String(place));
+          }),
           (b) => pool.submit(b),
           async (batch, reply) => {
             merge(reply);
-            if (!('numbered' in reply) || reply.numbered === undefined) return;
+            if (!('numbered' in reply) || reply.numbered === undefined) throw lexlockBug(`a tally worker answered batch ${batch.id} without token numbers`);
             const { numbers, lengths, group } = reply.numbered;
             let at = 0;
             for (let i = 0; i < lengths.length; i++) {
               const n = lengths[i] as number;
-              await spill.add(labels.of(batch.labels[i] ?? undefined), group, numbers.subarray(at, at + n), n);
+              await spill.add(labels.of(batch.labels[i] ?? undefined), group, numbers.subarray(at, at + n), n, keys.take() as string);
               at += n;
             }
           },
@@ -128,7 +137,7 @@ export async function tallyAndRecord(
         for (const [group, map] of groups) idsOfGroup.set(group, map.map((n) => idOf[n] as number));
         const { stats, write } = rowWriter(lexicon, shape, sink);
         let ids = new Int32Array(1024);
-        for await (const { label, group, numbers } of spill.documents()) {
+        for await (const { label, group, numbers, key } of spill.documents()) {
           const table = idsOfGroup.get(group);
           if (table === undefined) {
             throw inputError('IO', { file: spill.path }, `a document's token numbers are of group ${group}, which no counts came with; something else changed the temporary file, or this is a lexlock bug`);
@@ -136,7 +145,7 @@ export async function tallyAndRecord(
           if (numbers.length > ids.length) ids = new Int32Array(Math.max(numbers.length, ids.length * 2));
           const row = ids.subarray(0, numbers.length);
           for (let i = 0; i < numbers.length; i++) row[i] = table[numbers[i] as number] as number;
-          await write(row, label === -1 ? undefined : labels.labels[label]);
+          await write(row, label === -1 ? undefined : labels.labels[label], key);
         }
         return stats;
       } finally {

@@ -15,17 +15,17 @@ export const IN_FLIGHT_PER_THREAD = 8;
 
 /**
  * Groups a stream of documents into numbered batches for worker threads, calling `each` on every
- * document in order on the way (the main thread keeps what needs corpus order, such as snippets).
+ * document in order on the way (the main thread keeps what needs corpus order, such as snippets or keys).
  */
-export async function* batchesOf(
-  documents: AsyncIterable<string | LabelledText> | Iterable<string | LabelledText>,
-  each: (text: string) => void = () => undefined,
+export async function* batchesOf<D extends string | LabelledText>(
+  documents: AsyncIterable<D> | Iterable<D>,
+  each: (text: string, document: D) => void = () => undefined,
 ): AsyncGenerator<Batch> {
   let batch: Batch = { id: 0, texts: [], labels: [] };
   let chars = 0;
   for await (const doc of documents) {
     const text = typeof doc === 'string' ? doc : doc.text;
-    each(text);
+    each(text, doc);
     batch.texts.push(text);
     batch.labels.push(typeof doc === 'string' ? null : (doc.label ?? null));
     chars += text.length;

@@ -24,7 +24,7 @@ describe('the lexlock executable', () => {
     expect(built.status).toBe(0);
     const encoded = lexlock('encode', demo, '--lexicon', tmp.path('lex.json'), '-o', tmp.path('enc'));
     expect(encoded.status).toBe(0);
-    expect((await readdir(tmp.path('enc'))).sort()).toEqual(['ids.npy', 'labels.npy', 'lengths.npy', 'manifest.json']);
+    expect((await readdir(tmp.path('enc'))).sort()).toEqual(['ids.npy', 'keys.jsonl', 'labels.npy', 'lengths.npy', 'manifest.json']);
     const verified = lexlock('verify', tmp.path('lex.json'));
     expect(verified.status).toBe(0);
     const lex = parseLexicon(await readFile(tmp.path('lex.json'), 'utf8'));

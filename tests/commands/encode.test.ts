@@ -26,9 +26,9 @@ describe('lexlock encode', () => {
     expect((await cli('build', tmp.path('m.csv'), '-o', tmp.path('lex.json'), '--label', 'topic', '--length', '4')).code).toBe(0);
     expect((await cli('encode', tmp.path('held.csv'), '--lexicon', tmp.path('lex.json'), '-o', tmp.path('out'))).code).toBe(0);
     await writeFile(tmp.path('plain.txt'), 'late again\nlovely\n');
-    const r = await cli('encode', tmp.path('plain.txt'), '--lexicon', tmp.path('lex.json'), '-o', tmp.path('out'), '--force');
+    const r = await cli('encode', tmp.path('plain.txt'), '--lexicon', tmp.path('lex.json'), '-o', tmp.path('out'), '--force', '--no-labels');
     expect([r.code, r.stderr]).toEqual([0, '']);
-    expect((await readdir(tmp.path('out'))).sort()).toEqual(['ids.npy', 'lengths.npy', 'manifest.json']);
+    expect((await readdir(tmp.path('out'))).sort()).toEqual(['ids.npy', 'keys.jsonl', 'lengths.npy', 'manifest.json']);
     expect(JSON.parse(await readFile(tmp.path('out/manifest.json'), 'utf8')).files.labels).toBeNull();
   });
 
@@ -50,7 +50,11 @@ describe('lexlock encode', () => {
     expect((await readNpy(tmp.path('out/lengths.npy'))).data).toEqual([4, 2, 3, 3]);
     expect((await readNpy(tmp.path('out/labels.npy'))).data).toEqual([0, 1, 0, -1]);
     const manifest = JSON.parse(await readFile(tmp.path('out/manifest.json'), 'utf8'));
-    expect([manifest.format, manifest.formatVersion]).toEqual(['lexlock.encoded', 2]);
+    expect([manifest.format, manifest.formatVersion]).toEqual(['lexlock.encoded', 3]);
+    expect(manifest.files).toEqual({ ids: 'ids.npy', lengths: 'lengths.npy', labels: 'labels.npy', keys: 'keys.jsonl' });
+    expect([manifest.badText, manifest.keyField, manifest.split]).toEqual(['fail', null, null]);
+    expect([manifest.labels, manifest.labelRows]).toEqual([['delays', 'praise'], [2, 1]]);
+    expect(await readFile(tmp.path('out/keys.jsonl'), 'utf8')).toBe('"1"\n"2"\n"3"\n"4"\n');
     expect(manifest.shape).toEqual({ length: 4, pad: 'start', cut: 'end' });
     expect(manifest.rows).toBe(4);
     expect(manifest.unknownLabels).toBe(1);
@@ -66,10 +70,10 @@ describe('lexlock encode', () => {
     expect(r.code).toBe(0);
     const lines = (await readFile(tmp.path('out.jsonl'), 'utf8')).trim().split('\n').map((l) => JSON.parse(l));
     expect(lines).toEqual([
-      { ids: [1, 1, 1, 2, 3, 4], length: 6, label: 0 },
-      { ids: [1, 1], length: 2, label: 1 },
-      { ids: [2, 2, 2], length: 3, label: 0 },
-      { ids: [1, 1, 1], length: 3, label: -1 },
+      { ids: [1, 1, 1, 2, 3, 4], length: 6, label: 0, key: '1' },
+      { ids: [1, 1], length: 2, label: 1, key: '2' },
+      { ids: [2, 2, 2], length: 3, label: 0, key: '3' },
+      { ids: [1, 1, 1], length: 3, label: -1, key: '4' },
     ]);
   });
 
@@ -118,10 +122,10 @@ describe('lexlock encode field defaults', () => {
       await writeFile(dir.path('m.txt'), 'late ferry\n');
       await cli('build', dir.path('m.csv'), '-o', dir.path('lex.json'), '--text', 'body', '--label', 'topic');
       expect((await cli('encode', dir.path('m.csv'), '--lexicon', dir.path('lex.json'), '-o', dir.path('a.jsonl'))).code).toBe(0);
-      expect(JSON.parse((await readFile(dir.path('a.jsonl'), 'utf8')).split('\n')[1]!)).toEqual({ ids: [5, 2], length: 2, label: 1 }); // crossing 2, ferry 3, late 4, lovely 5 (all once: string order)
-      const txt = await cli('encode', dir.path('m.txt'), '--lexicon', dir.path('lex.json'), '-o', dir.path('b.jsonl'));
+      expect(JSON.parse((await readFile(dir.path('a.jsonl'), 'utf8')).split('\n')[1]!)).toEqual({ ids: [5, 2], length: 2, label: 1, key: '2' }); // crossing 2, ferry 3, late 4, lovely 5 (all once: string order)
+      const txt = await cli('encode', dir.path('m.txt'), '--lexicon', dir.path('lex.json'), '-o', dir.path('b.jsonl'), '--no-labels');
       expect(txt.stderr).toBe('');
-      expect(JSON.parse((await readFile(dir.path('b.jsonl'), 'utf8')).trim())).toEqual({ ids: [4, 3], length: 2 });
+      expect(JSON.parse((await readFile(dir.path('b.jsonl'), 'utf8')).trim())).toEqual({ ids: [4, 3], length: 2, key: '1' });
     } finally {
       await dir.remove();
     }

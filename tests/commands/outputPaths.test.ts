@@ -61,7 +61,7 @@ describe('without --force, an existing output is refused with exit 1 and left as
     await mkdir(tmp.path('empty'));
     const r = await cli('encode', tmp.path('m.csv'), '--lexicon', tmp.path('lex.json'), '-o', tmp.path('empty'));
     expect([r.code, r.stderr]).toEqual([0, '']);
-    expect((await readdir(tmp.path('empty'))).sort()).toEqual(['ids.npy', 'lengths.npy', 'manifest.json']);
+    expect((await readdir(tmp.path('empty'))).sort()).toEqual(['ids.npy', 'keys.jsonl', 'lengths.npy', 'manifest.json']);
     await symlink(tmp.path('empty'), tmp.path('linked'));
     const linked = await cli('encode', tmp.path('m.csv'), '--lexicon', tmp.path('lex.json'), '-o', tmp.path('linked'), '--force');
     expect([linked.code, linked.stderr]).toEqual([1, `lexlock encode: ${tmp.path('linked')} is a symbolic link to ${tmp.path('empty')}${SUFFIX} ${tmp.path('empty')} itself as the output\n`]);

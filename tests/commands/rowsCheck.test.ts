@@ -16,12 +16,12 @@ vi.mock('../../src/pipeline/encodeCorpus.js', async (original) => {
       const [documents, lexicon, shape, sink, options] = args;
       let first = true;
       const leaky = {
-        row: async (ids: Int32Array, kept: number, label: number | null) => {
+        row: async (ids: Int32Array, kept: number, label: number | null, key: string, facts: { tokens: number; oovTokens: number }) => {
           if (lose.mode === 'row' && first) {
             first = false;
             return;
           }
-          await sink.row(ids, kept, label);
+          await sink.row(ids, kept, label, key, facts);
         },
       };
       const stats = await real.encodeCorpus(documents, lexicon, shape, leaky, options);
@@ -52,7 +52,7 @@ const tmp = freshFolderEachTest();
 describe('encode commits nothing when rows and documents disagree', () => {
   it.each([
     ['the run counts one document less than it read', 'count', 'out', (out: string) => `${out}: not written: it got 2 rows for 3 documents`],
-    ['a row never reaches the .npy files', 'row', 'out', (out: string) => `${out}/ids.npy: not written: it got 2 rows for 3 documents`],
+    ['a row never reaches the .npy files', 'row', 'out', (out: string) => `${out}: not written: it got 2 rows for 3 documents`],
     ['a row never reaches the .jsonl file', 'row', 'rows.jsonl', (out: string) => `${out}: not written: it got 2 rows for 3 documents`],
   ] as const)('%s: exit 1, the old output kept', async (_what, mode, name, message) => {
     await writeFile(tmp.path('m.csv'), 'text\nthe ferry was late\nlovely crossing\nlate late late\n');

@@ -119,10 +119,10 @@ describe('a disk that takes part of each write', () => {
     const spill = await NumberSpill.create(tmp.path('spill'));
     const documents = 3000;
     const numbers = Int32Array.from({ length: 1000 }, (_, i) => i * 7);
-    for (let d = 0; d < documents; d++) await spill.add(d % 5, 0, numbers, d % 1000);
+    for (let d = 0; d < documents; d++) await spill.add(d % 5, 0, numbers, d % 1000, `doc/${d}`);
     let seen = 0;
     for await (const doc of spill.documents()) {
-      expect([doc.label, doc.numbers.length, doc.numbers[doc.numbers.length - 1] ?? -1]).toEqual([seen % 5, seen % 1000, seen % 1000 === 0 ? -1 : ((seen % 1000) - 1) * 7]);
+      expect([doc.label, doc.numbers.length, doc.numbers[doc.numbers.length - 1] ?? -1, doc.key]).toEqual([seen % 5, seen % 1000, seen % 1000 === 0 ? -1 : ((seen % 1000) - 1) * 7, `doc/${seen}`]);
       seen += 1;
     }
     expect(seen).toBe(documents);

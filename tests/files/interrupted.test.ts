@@ -185,7 +185,7 @@ describe('an encode to .npy files killed at any moment (SIGKILL)', () => {
     const reference = await encode(tmp.path('ref/out')).ended;
     const runMs = Date.now() - began; // only to spread the kills over a run, never asserted
     expect([reference.code, reference.stderr]).toEqual([0, '']);
-    const names = ['ids.npy', 'lengths.npy', 'manifest.json'];
+    const names = ['ids.npy', 'keys.jsonl', 'lengths.npy', 'manifest.json'];
     expect((await readdir(dest)).sort()).toEqual(names);
     const before = new Map<string, Buffer>();
     const after = new Map<string, Buffer>();

@@ -47,7 +47,7 @@ describe('removeOpenTemps', () => {
   it('names the lexicon a spill of build --encode stands for, and forgets the spill once removed', async () => {
     const dir = await folder();
     const spill = await NumberSpill.create(spillPathFor(join(dir, 'lex.json')));
-    await spill.add(0, 0, Int32Array.of(5, 6), 2);
+    await spill.add(0, 0, Int32Array.of(5, 6), 2, '1');
     expect(removeOpenTemps()).toEqual({ destinations: [join(dir, 'lex.json')], failed: [], written: [] });
     expect(await readdir(dir)).toEqual([]);
     const again = await NumberSpill.create(spillPathFor(join(dir, 'lex.json')));

@@ -37,7 +37,8 @@ describe('tallyCorpus and encodeCorpus', () => {
     expect(rows.map((r) => r[0])).toEqual(texts.map((t) => Array.from(lexicon.encode(t, { shape }))));
     expect(rows.map((r) => [r[1], r[2]])).toEqual([[3, 0], [0, 1], [4, 0], [2, -1]]);
     // Hand-counted: 3 + 0 + 7 + 2 = 12 tokens; OOV: the, was, again, and, again, new, label = 7.
-    expect(stats).toEqual({ documents: 4, tokens: 12, oovTokens: 7, truncatedDocuments: 1, droppedTokens: 3, unknownLabels: 1, labelled: 4 });
+    // Rows per label id: delays (0) twice, praise (1) once; the unknown label is not a label's row.
+    expect(stats).toEqual({ documents: 4, tokens: 12, oovTokens: 7, truncatedDocuments: 1, droppedTokens: 3, unknownLabels: 1, labelled: 4, labelRows: [2, 1] });
   });
 
   it('keep the same snippets in any document order (property)', async () => {

@@ -13,9 +13,9 @@ const demo = new URL('../../corpora-demo/ferry-messages.csv', import.meta.url).p
 const rules = resolveRules();
 const tmp = freshFolderEachTest();
 
-function collecting(): { rows: number[][]; sink: RowSink } {
-  const rows: number[][] = [];
-  return { rows, sink: { row: (ids, kept, label) => void rows.push([...ids, kept, label ?? -2]) } };
+function collecting(): { rows: Array<Array<number | string>>; sink: RowSink } {
+  const rows: Array<Array<number | string>> = [];
+  return { rows, sink: { row: (ids, kept, label, key) => void rows.push([...ids, kept, label ?? -2, key]) } };
 }
 
 // Common practice: encoding from kept token numbers must give what encoding the corpus again gives.
@@ -26,7 +26,7 @@ describe('tallyAndRecord', () => {
     ['fixed length, 2 threads', { length: 24, pad: 'end', cut: 'end' } as const, 2],
     ['variable length, 3 threads', null, 3],
   ])('tallies as tallyCorpus does and encodes the same rows as encodeCorpus (%s), then removes its spill', async (_name, shape, threads) => {
-    const recorded = await tallyAndRecord(readCorpus(demo, { label: 'topic' }), rules, tmp.path('spill'), { threads });
+    const recorded = await tallyAndRecord(readCorpus(demo, { label: 'topic', key: 'id' }), rules, tmp.path('spill'), { threads });
     const plain = await tallyCorpus(readCorpus(demo, { label: 'topic' }), rules);
     const lexicon = freeze(recorded.tally, { cap: 700, snippets: recorded.snippets, shape, now: new Date(0) });
     expect(serializeLexicon(lexicon)).toBe(serializeLexicon(freeze(plain.tally, { cap: 700, snippets: plain.snippets, shape, now: new Date(0) })));
@@ -34,8 +34,9 @@ describe('tallyAndRecord', () => {
     const fromSpill = collecting();
     const again = collecting();
     const statsFromSpill = await recorded.encode(lexicon, shape, fromSpill.sink);
-    const stats = await encodeCorpus(readCorpus(demo, { label: 'topic' }), lexicon, shape, again.sink);
+    const stats = await encodeCorpus(readCorpus(demo, { label: 'topic', key: 'id' }), lexicon, shape, again.sink);
     expect(fromSpill.rows).toHaveLength(4000);
+    expect([fromSpill.rows[0]!.at(-1), fromSpill.rows[3999]!.at(-1)]).toEqual(['m0001', 'm4000']);
     expect(fromSpill.rows).toEqual(again.rows);
     expect(statsFromSpill).toEqual(stats);
     expect(stats.oovTokens).toBeGreaterThan(0);
@@ -49,7 +50,7 @@ describe('tallyAndRecord', () => {
     // 3,000 documents of 100 words: 20 common to all, 80 of their own; every third one labelled.
     const docs = Array.from({ length: 3000 }, (_, d) => ({ text: Array.from({ length: 100 }, (_, k) => word(k < 20 ? k : 20 + d * 80 + k)).join(' '), label: d % 3 === 0 ? `l${d % 4}` : undefined }));
     expect(20 + 3000 * 80).toBeGreaterThan(2 * KEPT_TYPES);
-    const rows: number[][][] = [];
+    const rows: Array<Array<Array<number | string>>> = [];
     for (const threads of [1, 2]) {
       const recorded = await tallyAndRecord(docs, rules, tmp.path(`spill-${threads}`), { threads });
       const lexicon = freeze(recorded.tally, { cap: 100_000, snippets: recorded.snippets, now: new Date(0) });

@@ -5,6 +5,7 @@ import { freeze } from '../../src/lexicon/freeze.js';
 import { encodeCorpus } from '../../src/pipeline/encodeCorpus.js';
 import { tallyCorpus } from '../../src/pipeline/tallyCorpus.js';
 import { resolveRules } from '../../src/rules/TextRules.js';
+import { Tally } from '../../src/tally/Tally.js';
 
 const demo = new URL('../../corpora-demo/ferry-messages.csv', import.meta.url).pathname;
 const rules = resolveRules();
@@ -37,18 +38,29 @@ describe('worker threads', () => {
     expect(lexicons[1]).toBe(lexicons[0]);
   });
 
-  it('encode the same rows in the same order on 1 and 2 threads', async () => {
+  it('encode the same rows in the same order, with the same keys, on 1 and 2 threads', async () => {
     const { tally } = await tallyCorpus(readCorpus(demo, { label: 'topic' }), rules);
     const lexicon = freeze(tally, { cap: 800 });
     const shape = { length: 32, pad: 'start', cut: 'end' } as const;
-    const runs: Array<{ rows: number[][]; stats: unknown }> = [];
+    const runs: Array<{ rows: Array<Array<number | string>>; stats: unknown }> = [];
     for (const threads of [1, 2]) {
-      const rows: number[][] = [];
-      const stats = await encodeCorpus(readCorpus(demo, { label: 'topic' }), lexicon, shape, { row: (ids, kept, label) => void rows.push([...ids, kept, label ?? -2]) }, { threads });
+      const rows: Array<Array<number | string>> = [];
+      const stats = await encodeCorpus(readCorpus(demo, { label: 'topic', key: 'id' }), lexicon, shape, { row: (ids, kept, label, key) => void rows.push([...ids, kept, label ?? -2, key]) }, { threads });
       runs.push({ rows, stats });
     }
     expect(runs[0]!.rows).toHaveLength(4000);
+    expect([runs[0]!.rows[0]!.at(-1), runs[0]!.rows[3999]!.at(-1)]).toEqual(['m0001', 'm4000']);
     expect(runs[1]).toEqual(runs[0]);
+  });
+
+  it('key documents without keys by their place in the stream, from 1, on 1 and 2 threads', async () => {
+    const lexicon = freeze(Tally.fromTexts(['late ferry'], rules));
+    const texts = Array.from({ length: 5000 }, (_, i) => (i % 2 === 0 ? `late ${i}` : { text: `ferry ${i}`, label: 'x' }));
+    for (const threads of [1, 2]) {
+      const keys: string[] = [];
+      await encodeCorpus(texts, lexicon, null, { row: (_ids, _kept, _label, key) => void keys.push(key) }, { threads });
+      expect(keys).toEqual(Array.from({ length: 5000 }, (_, i) => String(i + 1)));
+    }
   });
 });
 

@@ -1,6 +1,6 @@
 import { resolve } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { pathFrom } from '../../src/commands/pathFrom.js';
+import { pathFrom } from '../../src/output/pathFrom.js';
 
 // Common practice: a path relative to the folder that names it (Node's path.relative is the reference).
 describe('pathFrom', () => {
