@@ -33,10 +33,9 @@ export class CharScan {
   }
 
   /**
-   * Starts on `out.text` read from `from` up to `limit` only (code point boundaries, `from` after white
-   * space or at a character that is not), stopping as soon as `out`
-   * holds `want` tokens: every token found is one of the whole text's, whatever follows (a run of white
-   * space goes on as one token or none into a longer window). {@link extendWindow} reads further.
+   * Starts on `out.text` read from `from` up to `limit` only (both between code points), stopping as
+   * soon as `out` holds `want` tokens. Every token found is the whole text's, whatever follows: a run
+   * of white space is one token (or none) however far it goes on. {@link extendWindow} reads further.
    */
   beginWindow(out: TokenSpans, spaces: 'keep' | 'drop', from: number, limit: number, want: number): void {
     this.begin(out, spaces);
@@ -49,11 +48,6 @@ export class CharScan {
   extendWindow(out: TokenSpans, limit: number): void {
     this.#out = out;
     this.#limit = limit;
-  }
-
-  /** Where the scan has got to, in code units of `out.text`. */
-  get at(): number {
-    return this.#at;
   }
 
   /**

@@ -14,6 +14,14 @@ const words = new WordScan();
 const chars = new CharScan();
 
 /**
+ * Code units of text the windows of this thread have looked at since it started: checked for ASCII,
+ * searched for a place to start a tail, normalized, or given to a scanner. Tests read it to prove that
+ * a window reads what its row needs, not the whole text, and never a part more than a few times;
+ * nothing else depends on it.
+ */
+export const windowWork = { units: 0 };
+
+/**
  * The code units a first window reads for `want` tokens: about ten a word (a word and its white space
  * take five to seven in prose and mail), two a character, so one window mostly does.
  */
@@ -23,8 +31,15 @@ export function firstWindow(want: number, rules: Pick<TextRules, 'level'>): numb
 
 /** The index of the first code unit of `text[from, to)` above U+007F, or `to`. */
 function asciiUpTo(text: string, from: number, to: number): number {
+  windowWork.units += to - from;
   for (let i = from; i < to; i++) if (text.charCodeAt(i) > 0x7f) return i;
   return to;
+}
+
+/** `normalize`, counted in {@link windowWork}. */
+function normalized(text: string, rules: TextRules): string {
+  windowWork.units += text.length;
+  return normalize(text, rules);
 }
 
 /**
@@ -52,7 +67,10 @@ function asciiUpTo(text: string, from: number, to: number): number {
  * @example scanWindow(text, rules, out, 200, 'end') // out holds at least the text's first 200 tokens (or all of them)
  */
 export function scanWindow(text: string, rules: TextRules, out: TokenSpans, want: number, cut: CutEnd, first = firstWindow(want, rules)): TokenSpans {
-  if (text.length <= first || isPrepared(text, rules)) return scanTokens(text, rules, out, true);
+  if (text.length <= first || isPrepared(text, rules)) {
+    windowWork.units += text.length;
+    return scanTokens(text, rules, out, true);
+  }
   return cut === 'end' ? scanHead(text, rules, out, want, first) : scanTail(text, rules, out, want, first);
 }
 
@@ -69,11 +87,15 @@ function scanHead(text: string, rules: TextRules, out: TokenSpans, want: number,
   let limit = Math.min(n, first);
   let size = first;
   let checked = Math.min(n, limit + 1);
+  // Where this window's scan starts: the character scan goes on where it stopped, the word scan from its last sure group.
+  let scanned = 0;
   if (asciiUpTo(text, 0, checked) === checked) {
     out.begin(text, rules.case === 'lower', rules);
     if (char) chars.beginWindow(out, spacesOf(rules), 0, limit, want);
     else words.beginWindow(out, 0, limit, want, limit === n);
     for (;;) {
+      windowWork.units += limit - (char ? scanned : words.sureAt);
+      scanned = limit;
       if (char) chars.step(Number.POSITIVE_INFINITY);
       else words.step(Number.POSITIVE_INFINITY);
       if (limit === n || (char ? out.count >= want : words.enough)) return out;
@@ -97,9 +119,10 @@ function scanHead(text: string, rules: TextRules, out: TokenSpans, want: number,
   // piece by piece; the tokens sure so far point into its start, which stays the same.
   let read = 0;
   let normal = '';
+  scanned = 0;
   for (;;) {
     const end = pieceEnd(text, read, Math.max(1, size - read));
-    const piece = normalize(read === 0 && end === n ? text : text.slice(read, end), rules);
+    const piece = normalized(read === 0 && end === n ? text : text.slice(read, end), rules);
     const final = end === n;
     if (read === 0) {
       normal = piece;
@@ -116,6 +139,8 @@ function scanHead(text: string, rules: TextRules, out: TokenSpans, want: number,
       }
     }
     read = end;
+    windowWork.units += normal.length - (char ? scanned : words.sureAt);
+    scanned = normal.length;
     if (char) chars.step(Number.POSITIVE_INFINITY);
     else words.step(Number.POSITIVE_INFINITY);
     if (final || (char ? out.count >= want : words.enough)) return out;
@@ -130,38 +155,42 @@ function startsTimeSuffix(code: number): boolean {
 }
 
 /**
- * Whether a normalized tail that starts at white space starts a group of the whole text: its white
- * space is not the single one wink's time rule may join over (`10 am`), because the tail has no second
- * character, or that is white space too, or it cannot start a time suffix.
+ * Whether normalized text that starts at white space starts a group of the whole text there: its
+ * white space is not the single one wink's time rule may join over (`10 am`), because what follows it
+ * is white space too, or cannot start a time suffix.
  */
-function startsGroup(tail: string): boolean {
-  if (tail.length === 0 || WHITE_SPACE_TABLE[tail.charCodeAt(0)] !== 1) return false;
-  if (tail.length === 1) return true;
-  const next = tail.charCodeAt(1);
+function startsGroup(head: string): boolean {
+  if (WHITE_SPACE_TABLE[head.charCodeAt(0)] !== 1) return false;
+  const next = head.charCodeAt(1);
   return WHITE_SPACE_TABLE[next] === 1 || !startsTimeSuffix(next);
 }
 
 /**
  * Where a tail may start at the word level, searching back from `from`: white space where the text
- * may be cut for normalization, not followed by an ASCII a, p or h (a character that normalizes to
- * one, such as a full-width `ａ`, is caught by {@link startsGroup} on the normalized tail). 0 when there
- * is none: the whole text.
+ * may be cut for normalization and whose normalized form {@link startsGroup}. Its next character
+ * decides: an ASCII one normalizes to itself (or, with a mark after it, to a letter that is no a, p or
+ * h either); any other is normalized with what follows up to the next place the text may be cut
+ * (`ａ` becomes `a`), a stretch no other candidate reads. 0 when there is none: the whole text.
  */
-function wordTailStart(text: string, from: number): number {
+function wordTailStart(text: string, from: number, rules: TextRules): number {
   const n = text.length;
   for (let s = from; s > 0; s--) {
+    windowWork.units += 1;
     const code = text.charCodeAt(s);
     if (WHITE_SPACE_TABLE[code] !== 1 || !mayCutBefore(code)) continue;
     if (s + 1 >= n) return s;
     const next = text.charCodeAt(s + 1);
-    if (next > 0x7f || !startsTimeSuffix(next)) return s;
+    if (next <= 0x7f ? WHITE_SPACE_TABLE[next] === 1 || !startsTimeSuffix(next) : startsGroup(normalized(text.slice(s, pieceEnd(text, s + 1, 1)), rules))) return s;
   }
   return 0;
 }
 
 /** Where a tail may start at the character level, searching back from `from`: where the text may be cut for normalization. */
 function charTailStart(text: string, from: number): number {
-  for (let s = from; s > 0; s--) if (mayCutBefore(text.charCodeAt(s))) return s;
+  for (let s = from; s > 0; s--) {
+    windowWork.units += 1;
+    if (mayCutBefore(text.charCodeAt(s))) return s;
+  }
   return 0;
 }
 
@@ -175,26 +204,18 @@ function scanTail(text: string, rules: TextRules, out: TokenSpans, want: number,
   const char = rules.level === 'char';
   let size = first;
   for (;;) {
-    let from = n - size;
-    let start = 0;
-    let inPlace = false;
-    for (;;) {
-      start = from <= 0 ? 0 : char ? charTailStart(text, from) : wordTailStart(text, from);
-      if (start === 0) return scanTokens(text, rules, out, true);
-      if (asciiUpTo(text, start, n) === n) {
-        // An ASCII tail normalizes alike wherever it is cut; it is read in place, folded.
-        out.begin(text, rules.case === 'lower', rules);
-        inPlace = true;
-        break;
-      }
-      const tail = normalize(text.slice(start), rules);
-      if (char || startsGroup(tail)) {
-        out.begin(tail, false, rules);
-        break;
-      }
-      from = start - 1;
+    const from = n - size;
+    const start = from <= 0 ? 0 : char ? charTailStart(text, from) : wordTailStart(text, from, rules);
+    if (start === 0) {
+      windowWork.units += n;
+      return scanTokens(text, rules, out, true);
     }
+    // An ASCII tail is read in place, folded (the text before it changes nothing of it).
+    const inPlace = asciiUpTo(text, start, n) === n;
+    if (inPlace) out.begin(text, rules.case === 'lower', rules);
+    else out.begin(normalized(text.slice(start), rules), false, rules);
     const at = inPlace ? start : 0;
+    windowWork.units += out.text.length - at;
     if (char) chars.beginWindow(out, spacesOf(rules), at, out.text.length, Number.POSITIVE_INFINITY);
     else words.beginWindow(out, at, out.text.length, Number.POSITIVE_INFINITY, true);
     if (char) chars.step(Number.POSITIVE_INFINITY);
