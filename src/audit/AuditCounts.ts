@@ -1,6 +1,7 @@
 import type { Lexicon } from '../lexicon/Lexicon.js';
 import { Tally, type TallyCounts } from '../tally/Tally.js';
 import type { LabelAudit } from './CoverageReport.js';
+import { OovPositions, type OovPositionCounts } from './OovPositions.js';
 
 /** The additive figures of an audit, as a worker thread sends them back. */
 export interface AuditParts {
@@ -10,6 +11,8 @@ export interface AuditParts {
   truncatedDocuments: number;
   droppedTokens: number;
   paddingTokens: number;
+  /** Where documents have their OOV tokens, from either end (for the OOV rate of what rows keep). */
+  oovPositions: OovPositionCounts;
 }
 
 /**
@@ -18,6 +21,7 @@ export interface AuditParts {
  */
 export class AuditCounts implements Omit<AuditParts, 'tally'> {
   readonly tally: Tally;
+  readonly oovPositions = new OovPositions();
   readonly labels = new Map<string, LabelAudit>();
   oovTokens = 0;
   truncatedDocuments = 0;
@@ -40,6 +44,7 @@ export class AuditCounts implements Omit<AuditParts, 'tally'> {
     let oov = 0;
     for (let i = 0; i < ids.length; i++) if (ids[i] === this.lexicon.oovId) oov += 1;
     this.oovTokens += oov;
+    if (oov > 0) this.oovPositions.add(ids, this.lexicon.oovId);
     const cut = this.length !== null && ids.length > this.length;
     if (this.length !== null) {
       if (cut) {
@@ -58,6 +63,7 @@ export class AuditCounts implements Omit<AuditParts, 'tally'> {
     this.truncatedDocuments += parts.truncatedDocuments;
     this.droppedTokens += parts.droppedTokens;
     this.paddingTokens += parts.paddingTokens;
+    this.oovPositions.merge(parts.oovPositions);
     return this;
   }
 
@@ -70,6 +76,7 @@ export class AuditCounts implements Omit<AuditParts, 'tally'> {
       truncatedDocuments: this.truncatedDocuments,
       droppedTokens: this.droppedTokens,
       paddingTokens: this.paddingTokens,
+      oovPositions: { fromStart: this.oovPositions.fromStart, fromEnd: this.oovPositions.fromEnd },
     };
   }
 

@@ -1,6 +1,6 @@
 import type { CapTie, WholeCaps } from '../lexicon/capTie.js';
 import type { IdentifyingTokens } from './identifyingTokens.js';
-import type { Shape } from '../lexicon/Shape.js';
+import type { Shape, ShapeEnd } from '../lexicon/Shape.js';
 import type { LengthSummary } from '../tally/nearestRank.js';
 
 /** Per-label audit figures. */
@@ -32,6 +32,56 @@ export interface Suggestions {
   lengthFor90: number;
   lengthFor95: number;
   lengthFor99: number;
+  /** Which end of long documents to cut so that rows keep more tokens with an id of their own. */
+  cut: CutAdvice;
+}
+
+/** A length worth weighing: a percentile of this corpus's document lengths, or the length audited. */
+export type LengthCandidate = 'p50' | 'p90' | 'p95' | 'p99' | 'chosen';
+
+/** A pair of figures, one for each end a long document may lose. */
+export interface ByCutEnd {
+  /** Long documents lose their first tokens (shape `cut: start`). */
+  cutStart: number;
+  /** Long documents lose their last tokens (shape `cut: end`). */
+  cutEnd: number;
+}
+
+/**
+ * What the model sees at one row length: the rows a shape of that length makes of this corpus. Exact
+ * counts, from the length of every document and where its OOV tokens are.
+ */
+export interface WindowFigures {
+  length: number;
+  /** Which candidates have this length (several when percentiles coincide). */
+  candidates: LengthCandidate[];
+  /** Documents longer than `length`, which lose tokens. */
+  truncatedDocuments: number;
+  /** Tokens those documents lose. */
+  droppedTokens: number;
+  /** Tokens the rows keep: the sum of min(tokens, length) over documents. */
+  keptTokens: number;
+  /** Padding ids (zeros) in the rows of shorter documents. */
+  paddingTokens: number;
+  /** `paddingTokens` over all ids (documents × length): the share of the model's input, and compute, spent on zeros. */
+  paddingShare: number;
+  /**
+   * OOV tokens among the kept ones, and their share of `keptTokens`, for each cut end; null for a length
+   * above 1,048,576 (longer than a lexicon can store) when some document is longer still, where
+   * positions are not counted.
+   */
+  keptOov: ByCutEnd | null;
+  keptOovRate: ByCutEnd | null;
+}
+
+/** Which end of long documents to cut, at one length, by the tokens with an id of their own the rows keep. */
+export interface CutAdvice {
+  /** The length compared at: the length audited, else this corpus's p95 (at least 1, at most 1,048,576). */
+  length: number;
+  /** Tokens with an id of their own (not OOV) the rows keep, for each cut end. */
+  knownKept: ByCutEnd;
+  /** The end to cut: the one whose rows keep more known tokens; null when both keep as many (nothing is cut, or a tie). */
+  cut: ShapeEnd | null;
 }
 
 /** This corpus against the lexicon's fit record: then and now. */
@@ -78,6 +128,12 @@ export interface CoverageReport {
    * frequent tokens (what a vocabulary of that cap would keep), at log-spaced caps up to all types.
    */
   coverage: Array<{ cap: number; share: number }>;
+  /**
+   * The rows of each candidate length (p50, p90, p95, p99 of document lengths and the length audited,
+   * those of at least 1 token), ascending by length: documents cut, tokens dropped, padding, and the
+   * OOV rate of what the rows keep for each cut end.
+   */
+  windows: WindowFigures[];
   /** Documents per length (tokens per document), ascending by length. */
   lengthHistogram: Array<{ length: number; documents: number }>;
   /** The lexicon audited against. */

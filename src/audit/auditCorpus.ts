@@ -9,6 +9,7 @@ import { coverageCurve } from './coverageCurve.js';
 import { drift } from './drift.js';
 import { identifyingTokensOf } from './identifyingTokens.js';
 import { suggest } from './suggest.js';
+import { cutAdvice, lengthCandidates, windowFigures } from './windowFigures.js';
 
 /** Options of {@link auditCorpus}. */
 export interface AuditOptions {
@@ -71,8 +72,9 @@ export function auditReport(counts: AuditCounts, lexicon: Lexicon, options: Audi
     // fromEntries defines own properties, so labels such as "__proto__" stay ordinary members.
     labels: Object.fromEntries(sortedLabels),
     topOov,
-    suggest: suggest(rankedCounts, tally.tokens, tally.lengths),
+    suggest: { ...suggest(rankedCounts, tally.tokens, tally.lengths), cut: cutAdvice(tally.lengths, counts.oovPositions, shape, lengthSummary.p95) },
     coverage: coverageCurve(rankedCounts, tally.tokens, [chosenCap]),
+    windows: windowFigures(tally.lengths, counts.oovPositions, lengthCandidates(lengthSummary, shape)),
     lengthHistogram: [...tally.lengths.entries()].sort((a, b) => a[0] - b[0]).map(([l, documents]) => ({ length: l, documents })),
     lexicon: { fingerprint: lexicon.fingerprint, tokens: lexicon.encoding.tokens.length, size: lexicon.size, reserved: lexicon.encoding.layout.reserved },
     capTie: lexicon.fit?.capTie ?? null,

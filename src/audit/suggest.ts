@@ -19,9 +19,9 @@ export function capForShare(rankedCounts: ArrayLike<number>, total: number, perc
 
 /**
  * Caps for 90/95/99 % of token occurrences (with the nearest caps around each that keep whole counts)
- * and lengths for 90/95/99 % of documents.
+ * and lengths for 90/95/99 % of documents (the cut end is advised by `cutAdvice`, from where OOV tokens are).
  */
-export function suggest(rankedCounts: ArrayLike<number>, total: number, lengths: ReadonlyMap<number, number>): Suggestions {
+export function suggest(rankedCounts: ArrayLike<number>, total: number, lengths: ReadonlyMap<number, number>): Omit<Suggestions, 'cut'> {
   const capFor90 = capForShare(rankedCounts, total, 90);
   const capFor95 = capForShare(rankedCounts, total, 95);
   const capFor99 = capForShare(rankedCounts, total, 99);

@@ -1,4 +1,5 @@
 import type { CoverageReport } from '../audit/CoverageReport.js';
+import { describeCutAdvice } from '../audit/describeCutAdvice.js';
 import { describeCapTie } from '../audit/describeCapTie.js';
 import type { WholeCaps } from '../lexicon/capTie.js';
 import type { Paint } from './colour.js';
@@ -81,12 +82,26 @@ export function auditSummary(report: CoverageReport, heading: string, gates: Gat
   if (report.capTie !== null) rows.push(['lexicon cap', describeCapTie(report.capTie)]);
   rows.push(...identifyingRows(report.identifyingTokens));
   rows.push(['lengths that fit', `90 % of documents: ${s.lengthFor90}, 95 %: ${s.lengthFor95}, 99 %: ${s.lengthFor99}`]);
+  if (report.documents > 0) rows.push(['cut end', `${describeCutAdvice(s.cut)}${s.cut.cut === null ? '' : ` (--cut ${s.cut.cut})`}`]);
   if (report.topOov.length > 0) {
     rows.push(['top OOV', report.topOov.slice(0, 10).map((t) => `${t.token} (${count(t.count)})`).join(', ')]);
   }
   const width = Math.max(...rows.map(([k]) => k.length));
   let out = `${paint.bold(heading)}\n${rows.map(([k, v]) => `${k.padEnd(width)}  ${v}`).join('\n')}\n`;
 
+  if (report.windows.length > 0) {
+    const head = ['length as', 'tokens', 'documents cut', 'tokens dropped', 'padding of ids', 'OOV kept, cut start', 'OOV kept, cut end'];
+    const body = report.windows.map((w) => [
+      w.candidates.join(' '),
+      count(w.length),
+      `${count(w.truncatedDocuments)} (${percent(report.documents === 0 ? 0 : w.truncatedDocuments / report.documents)})`,
+      count(w.droppedTokens),
+      percent(w.paddingShare),
+      w.keptOovRate === null ? '–' : percent(w.keptOovRate.cutStart),
+      w.keptOovRate === null ? '–' : percent(w.keptOovRate.cutEnd),
+    ]);
+    out += `\n${paint.bold('rows of each length (what the model sees)')}\n${table([head, ...body], paint)}\n`;
+  }
   const labels = Object.entries(report.labels);
   if (labels.length > 0) {
     const head = ['label', 'documents', 'tokens', 'OOV', ...(report.shape === null ? [] : ['truncated'])];

@@ -3,6 +3,7 @@ import { fingerprintOf } from '../artifact/fingerprint.js';
 import { DEFAULT_BAD_TEXT, type BadTextPolicy } from '../artifact/badTextPolicy.js';
 import type { Canary, Encoding, Fit } from '../artifact/schema.js';
 import { scanTokens } from '../rules/scanTokens.js';
+import { scanWindow } from '../rules/scanWindow.js';
 import { SpanIndex } from '../rules/SpanIndex.js';
 import { tokenize } from '../rules/tokenize.js';
 import type { TextRules } from '../rules/TextRules.js';
@@ -178,19 +179,22 @@ export class Lexicon {
   /**
    * Encodes one text: variable length, or shaped (the lexicon's shape by default, or `options.shape`).
    * Tokens are looked up where they lie in the text, so encoding ASCII text whose chunks are plain or
-   * met before allocates only the returned ids (see {@link scanTokens}); cut tokens are never looked up.
+   * met before allocates only the returned ids (see {@link scanTokens}). Shaped, only the part of a long
+   * text the row keeps is tokenized (see {@link scanWindow}): the same ids as the whole text's tokens
+   * give, in about the time of a text of `length` tokens however long the text is.
    * @example lexicon.encode('late again', { shape: { length: 4, pad: 'start', cut: 'end' } }) // [0, 0, 17, 93]
    */
   encode(text: string, options?: EncodeOptions): Int32Array {
     const shape = options?.shape === undefined ? this.encoding.shape : options.shape;
-    const count = scanTokens(text, this.encoding.rules, spans, true).count;
     if (shape === null) {
+      const count = scanTokens(text, this.encoding.rules, spans, true).count;
       const out = new Int32Array(count);
       for (let k = 0; k < count; k++) out[k] = this.idOfSpan(k);
       return out;
     }
     const out = new Int32Array(shape.length);
     // Only the kept tokens are looked up.
+    const count = scanWindow(text, this.encoding.rules, spans, shape.length, shape.cut).count;
     const kept = keptOf(count, shape);
     const from = firstKept(count, shape);
     const to = paddingBefore(kept, shape);
@@ -209,6 +213,22 @@ export class Lexicon {
    */
   encodeBytes(bytes: Uint8Array, options?: EncodeBytesOptions): Int32Array {
     return this.encode(decodeBytes(bytes, options?.badText ?? this.badText), options);
+  }
+
+  /**
+   * The ids of the tokens a row of `shape` keeps, in order and without padding (the lexicon's shape by
+   * default; every token's id without one): `encode`'s row with its zeros left out, found the same way.
+   * @example lexicon.keptIds('the ferry was late again', { shape: { length: 2, pad: 'end', cut: 'start' } }) // [12, 93]
+   */
+  keptIds(text: string, options?: EncodeOptions): Int32Array {
+    const shape = options?.shape === undefined ? this.encoding.shape : options.shape;
+    if (shape === null) return this.encode(text, VARIABLE_LENGTH);
+    const count = scanWindow(text, this.encoding.rules, spans, shape.length, shape.cut).count;
+    const kept = keptOf(count, shape);
+    const from = firstKept(count, shape);
+    const out = new Int32Array(kept);
+    for (let i = 0; i < kept; i++) out[i] = this.idOfSpan(from + i);
+    return out;
   }
 
   /** The id of token `k` of the text encode scanned last. */
@@ -230,16 +250,17 @@ export class Lexicon {
    */
   encodeMany(texts: Iterable<string | LabelledText>, options: EncodeOptions = {}): Batch {
     checkManyTexts(texts);
+    const given = options.shape === undefined ? this.encoding.shape : options.shape;
     const rowsIds: Int32Array[] = [];
     const labels: number[] = [];
     let labelled = false;
     for (const item of texts) {
       const { text, label } = checkedItem(item, rowsIds.length + 1);
-      rowsIds.push(this.encode(text, VARIABLE_LENGTH));
+      // With a shape, only what each row keeps is tokenized.
+      rowsIds.push(given === null ? this.encode(text, VARIABLE_LENGTH) : this.keptIds(text, { shape: given }));
       if (label !== undefined) labelled = true;
       labels.push(label === undefined ? -1 : (this.labelIds.get(label) ?? -1));
     }
-    const given = options.shape === undefined ? this.encoding.shape : options.shape;
     let longest = 1;
     for (const row of rowsIds) if (row.length > longest) longest = row.length;
     const shape: Shape = given ?? { length: longest, pad: 'end', cut: 'end' };

@@ -18,6 +18,9 @@ export class CharScan {
   #keep = true;
   #at = 0;
   #inSpace = false;
+  /** A window (see {@link beginWindow}): where the text is read up to, and the tokens wanted. */
+  #limit = -1;
+  #want = Number.POSITIVE_INFINITY;
 
   /** Starts on `out.text`. */
   begin(out: TokenSpans, spaces: 'keep' | 'drop'): void {
@@ -25,18 +28,42 @@ export class CharScan {
     this.#keep = spaces === 'keep';
     this.#at = 0;
     this.#inSpace = false;
+    this.#limit = -1;
+    this.#want = Number.POSITIVE_INFINITY;
   }
 
-  /** Goes on for about `budget` code units (Infinity: to the end); true once every token is in `out`. */
+  /**
+   * Starts on `out.text` read from `from` up to `limit` only (both between code points), stopping as
+   * soon as `out` holds `want` tokens. Every token found is the whole text's, whatever follows: a run
+   * of white space is one token (or none) however far it goes on. {@link extendWindow} reads further.
+   */
+  beginWindow(out: TokenSpans, spaces: 'keep' | 'drop', from: number, limit: number, want: number): void {
+    this.begin(out, spaces);
+    this.#at = from;
+    this.#limit = limit;
+    this.#want = want;
+  }
+
+  /** Goes on in a window that now reads `out.text` (the same text, or the same text made longer) up to `limit`. */
+  extendWindow(out: TokenSpans, limit: number): void {
+    this.#out = out;
+    this.#limit = limit;
+  }
+
+  /**
+   * Goes on for about `budget` code units (Infinity: to the end); true once every token is in `out`,
+   * or, in a window, once `want` tokens are or the limit is reached.
+   */
   step(budget: number): boolean {
     const out = this.#out as TokenSpans;
     const text = out.text;
-    const n = text.length;
+    const n = this.#limit < 0 ? text.length : this.#limit;
     const keep = this.#keep;
     const until = Math.min(n, this.#at + budget);
+    const want = this.#want;
     let inSpace = this.#inSpace;
     let i = this.#at;
-    while (i < until) {
+    while (i < until && out.count < want) {
       const code = text.charCodeAt(i);
       if (code >= 0xd800 && code <= 0xdbff && i + 1 < n) {
         const next = text.charCodeAt(i + 1);
@@ -58,7 +85,7 @@ export class CharScan {
     }
     this.#at = i;
     this.#inSpace = inSpace;
-    if (i < n) return false;
+    if (i < n && out.count < want) return false;
     this.#out = null;
     return true;
   }

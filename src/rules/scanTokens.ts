@@ -31,6 +31,11 @@ export function keepPrepared(text: string, rules: TextRules, spans: TokenSpans):
   prepared = { text, rules, spans };
 }
 
+/** Whether the tokens of `text` under `rules` were found ahead (see {@link keepPrepared}) and wait for {@link scanTokens}. */
+export function isPrepared(text: string, rules: TextRules): boolean {
+  return prepared !== null && prepared.text === text && sameRules(prepared.rules, rules);
+}
+
 /** Lets go of the tokens {@link keepPrepared} kept, if nothing took them. */
 export function dropPrepared(): void {
   prepared = null;
@@ -48,7 +53,7 @@ export function dropPrepared(): void {
  * @example scanTokens("Can't wait!", resolveRules(), out, true) // out holds 'ca', "n't", 'wait', '!'
  */
 export function scanTokens(text: string, rules: TextRules, out: TokenSpans, mayFold: boolean): TokenSpans {
-  if (prepared !== null && prepared.text === text && sameRules(prepared.rules, rules)) {
+  if (prepared !== null && isPrepared(text, rules)) {
     out.takeFrom(prepared.spans);
     prepared = null;
     return out;

@@ -66,6 +66,8 @@ describe('auditCorpus', () => {
       lengthFor90: 6,
       lengthFor95: 6,
       lengthFor99: 6,
+      // At length 4 both ends keep 11 tokens, 7 of them OOV (the 6-token document keeps 3 either way).
+      cut: { length: 4, knownKept: { cutStart: 4, cutEnd: 4 }, cut: null },
     });
     expect(r.lengthHistogram).toEqual([
       { length: 1, documents: 1 },

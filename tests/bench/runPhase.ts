@@ -11,13 +11,15 @@ import {
   tallyCorpus,
   tokenize,
   type CorpusOptions,
+  type Lexicon,
 } from 'lexlock/node';
 import { allocatedBytes } from '../helpers/allocatedBytes.js';
 import { baselineTexts } from './baselineTexts.js';
 import type { PhaseResult, PhaseSpec } from './PhaseSpec.js';
 import { percentile } from './percentile.js';
 import { plainTokens } from './plainTokens.js';
-import { serviceText } from './serviceText.js';
+import { longServiceText, serviceText } from './serviceText.js';
+import { WINDOW_LENGTH, WINDOW_TEXT_BYTES } from './windowSizes.js';
 
 function corpusOptions(spec: PhaseSpec): CorpusOptions {
   return spec.label === undefined ? {} : { label: spec.label };
@@ -121,9 +123,12 @@ async function measureLatency(spec: PhaseSpec): Promise<Measured> {
   }
   const sorted = micros.sort();
   const length = lexicon.shape?.length ?? lexicon.encode(text).length;
+  const figures: Record<string, number> = {};
+  measureWindows(lexicon, figures);
   return {
     seconds: 0,
     figures: {
+      ...figures,
       tokens: lexicon.size - 2,
       parseMs: median(parseMs),
       loadMs: median(loadMs),
@@ -135,6 +140,47 @@ async function measureLatency(spec: PhaseSpec): Promise<Measured> {
       outputHeapBytes: allocatedBytes(() => new Int32Array(length)),
     },
   };
+}
+
+/**
+ * Shaped encode of long texts (issue 14, point 7): p50 and p99 of one encode at length 200, for each
+ * size, cut end and text (ASCII, or with accents to normalize). The calls of all of them take turns
+ * (one of each, round after round, after warm-up), so a busy moment of the machine falls on all alike.
+ * Also the time of encoding the 300 KiB ASCII text whole (variable length), the work a window saves.
+ */
+function measureWindows(lexicon: Lexicon, figures: Record<string, number>): void {
+  const series: Array<{ key: string; text: string; options: { shape: { length: number; pad: 'start'; cut: 'start' | 'end' } } }> = [];
+  for (const accented of [false, true]) {
+    for (const [name, bytes] of WINDOW_TEXT_BYTES) {
+      const text = longServiceText(lexicon, bytes, 7, accented);
+      for (const cut of ['start', 'end'] as const) {
+        series.push({ key: `window${name}${accented ? 'Accented' : 'Ascii'}Cut${cut}`, text, options: { shape: { length: WINDOW_LENGTH, pad: 'start', cut } } });
+      }
+    }
+  }
+  for (let round = 0; round < 300; round++) for (const s of series) lexicon.encode(s.text, s.options);
+  const rounds = 3_000;
+  const micros = series.map(() => new Float64Array(rounds));
+  for (let round = 0; round < rounds; round++) {
+    series.forEach((s, i) => {
+      const t = process.hrtime.bigint();
+      lexicon.encode(s.text, s.options);
+      (micros[i] as Float64Array)[round] = Number(process.hrtime.bigint() - t) / 1e3;
+    });
+  }
+  series.forEach((s, i) => {
+    const sorted = (micros[i] as Float64Array).sort();
+    figures[`${s.key}P50Micros`] = percentile(sorted, 50);
+    figures[`${s.key}P99Micros`] = percentile(sorted, 99);
+  });
+  const whole = longServiceText(lexicon, 300 * 1024, 7, false);
+  const ms: number[] = [];
+  for (let i = 0; i < 25; i++) {
+    const t = process.hrtime.bigint();
+    lexicon.encode(whole, { shape: null });
+    ms.push(seconds(t) * 1e3);
+  }
+  figures.whole300KiBMs = median(ms);
 }
 
 /** The phases run in this process (the command-line phases run dist/bin.js: see spawnPhase). */

@@ -16,3 +16,23 @@ export function serviceText(lexicon: Lexicon, words: number, seed: number): stri
   }
   return out.join(' ') + '.';
 }
+
+/**
+ * A long text of about `bytes` UTF-8 bytes, made of service texts of 50 words (see {@link serviceText})
+ * one after another, cut at a space: the long messages shaped encodes keep only a window of. With
+ * `accented`, one word in twenty gets an accent (`é`), so the text must be normalized.
+ */
+export function longServiceText(lexicon: Lexicon, bytes: number, seed: number, accented: boolean): string {
+  const random = seededRandom(seed);
+  const parts: string[] = [];
+  let size = 0;
+  for (let i = 0; size < bytes; i++) {
+    let part = serviceText(lexicon, 50, seed + i);
+    if (accented) part = part.split(' ').map((w) => (random() < 0.05 ? `${w}é` : w)).join(' ');
+    parts.push(part);
+    size += Buffer.byteLength(part) + 1;
+  }
+  const text = parts.join(' ');
+  const cut = text.lastIndexOf(' ', bytes);
+  return Buffer.byteLength(text) <= bytes ? text : text.slice(0, cut > 0 ? cut : bytes);
+}

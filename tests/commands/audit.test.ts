@@ -24,7 +24,15 @@ describe('lexlock audit', () => {
       expect(report).toHaveProperty(member);
     }
     expect(Object.keys(report.length)).toEqual(['min', 'p50', 'p90', 'p95', 'p99', 'max']);
-    expect(Object.keys(report.suggest)).toEqual(['capFor90', 'capFor95', 'capFor99', 'wholeCapsFor90', 'wholeCapsFor95', 'wholeCapsFor99', 'lengthFor90', 'lengthFor95', 'lengthFor99']);
+    expect(Object.keys(report.suggest)).toEqual(['capFor90', 'capFor95', 'capFor99', 'wholeCapsFor90', 'wholeCapsFor95', 'wholeCapsFor99', 'lengthFor90', 'lengthFor95', 'lengthFor99', 'cut']);
+    // What the model sees at p50 (3), the lexicon's length (4) and p90-p99 (6); see tests/audit/windowFigures.test.ts.
+    expect(report.windows.map((w: { length: number; candidates: string[] }) => [w.length, w.candidates])).toEqual([
+      [3, ['p50']],
+      [4, ['chosen']],
+      [6, ['p90', 'p95', 'p99']],
+    ]);
+    expect(Object.keys(report.windows[0])).toEqual(['length', 'candidates', 'truncatedDocuments', 'droppedTokens', 'keptTokens', 'paddingTokens', 'paddingShare', 'keptOov', 'keptOovRate']);
+    expect(report.suggest.cut).toEqual({ length: 4, knownKept: { cutStart: 4, cutEnd: 4 }, cut: null });
     expect(report.suggest.wholeCapsFor90).toEqual({ below: 2, above: 9 });
     // The lexicon (cap 3) cut through ferry, the, was (2 each) of its training corpus: ferry and the kept.
     expect(report.capTie).toEqual({ cap: 3, count: 2, tokens: 3, kept: 2, left: 1, below: 1, above: 4 });
@@ -110,6 +118,18 @@ describe('lexlock audit', () => {
       ['label    documents  tokens       OOV  truncated', 'delays           2       9   44.44 %    50.00 %', 'praise           1       1  100.00 %     0.00 %', 'refunds          1       3  100.00 %     0.00 %'].join('\n'),
     );
     expect(plain.stdout).toContain('\nnew tokens       rough (3), and (1), crossing (1), sea (1)\n');
+    // Lengths 3, 6, 1, 3 tokens; the 6-token document is K O O O O K (K known, O OOV). At length 3 its
+    // first 3 and its last 3 hold 2 OOV each, the others are kept whole: 6 OOV of 10 kept, 2 zeros of 12 ids.
+    expect(plain.stdout).toContain('\ncut end           at length 4 rows keep 4 known tokens whichever end long documents lose\n');
+    expect(plain.stdout).toContain(
+      [
+        'rows of each length (what the model sees)',
+        'length as    tokens  documents cut  tokens dropped  padding of ids  OOV kept, cut start  OOV kept, cut end',
+        'p50               3    1 (25.00 %)               3         16.67 %              60.00 %            60.00 %',
+        'chosen            4    1 (25.00 %)               2         31.25 %              63.64 %            63.64 %',
+        'p90 p95 p99       6     0 (0.00 %)               0         45.83 %              61.54 %            61.54 %',
+      ].join('\n'),
+    );
     const runOn = async (env: Record<string, string>) => {
       let out = '';
       await run(['audit', tmp.path('live.csv'), '--lexicon', tmp.path('lex.json')], { stdout: { write: (t: string) => (out += t), isTTY: true }, stderr: { write: () => true }, env });
@@ -129,5 +149,16 @@ describe('lexlock audit', () => {
     expect(html).toContain('<td class="num">2 or 9</td>');
     const again = await cli('audit', tmp.path('live.csv'), '--lexicon', tmp.path('lex.json'), '--report', tmp.path('r.html'));
     expect([again.code, again.stderr]).toEqual([1, `lexlock audit: ${tmp.path('r.html')} already exists; pass --force to overwrite it\n`]);
+  });
+});
+
+describe('lexlock audit: which end to cut', () => {
+  it('says which cut end keeps more known tokens', async () => {
+    // Known (cap 3): late, ferry, the. Each live document starts with OOV tokens and ends with known ones.
+    await writeFile(tmp.path('openers.csv'), 'text,topic\nrough sea late ferry,delays\nsea late,delays\n');
+    const summary = await cli('audit', tmp.path('openers.csv'), '--lexicon', tmp.path('lex.json'), '--length', '2');
+    expect(summary.code).toBe(0);
+    // At length 2 the first two tokens hold 3 OOV (rough sea | sea late), the last two 1 (late ferry | sea late).
+    expect(summary.stdout).toContain('\ncut end           at length 2 rows keep 3 known tokens when long documents lose their start, 1 when they lose their end: cut the start (--cut start)\n');
   });
 });

@@ -9,6 +9,7 @@ import { labelSection } from './sections/labelSection.js';
 import { lengthSection } from './sections/lengthSection.js';
 import { summarySection } from './sections/summarySection.js';
 import { topOovSection } from './sections/topOovSection.js';
+import { windowSection } from './sections/windowSection.js';
 
 export type { ReportContext } from './ReportContext.js';
 
@@ -20,7 +21,8 @@ const POLICY = "default-src 'none'; style-src 'unsafe-inline'; img-src data:; ba
 
 /**
  * One self-contained HTML page (inline CSS and SVG, no scripts, nothing fetched) showing a
- * {@link CoverageReport}: summary, coverage curve, length histogram, per-label figures, top OOV tokens, drift.
+ * {@link CoverageReport}: summary, coverage curve, length histogram, what the model sees at each candidate
+ * length, per-label figures, top OOV tokens, drift.
  * @example await writeFile('audit.html', renderReport(report, { corpus: 'tickets.csv', lexiconFile: 'tickets.lexicon.json', settings: {}, generatedAt: new Date().toISOString(), lexlockVersion: VERSION }))
  */
 export function renderReport(report: CoverageReport, context: ReportContext): string {
@@ -29,6 +31,7 @@ export function renderReport(report: CoverageReport, context: ReportContext): st
     summarySection(report),
     coverageSection(report),
     lengthSection(report),
+    windowSection(report),
     labelSection(report),
     topOovSection(report),
     report.drift === undefined ? '' : driftSection(report.drift),

@@ -30,6 +30,7 @@ th, td { text-align: left; padding: 3px 8px; border-bottom: 1px solid ${PALETTE.
 thead th { border-bottom: 2px solid ${PALETTE.ink}; font-weight: 600; }
 tbody th { font-weight: 400; }
 .num { text-align: right; font-variant-numeric: tabular-nums; white-space: nowrap; }
+thead th.num { white-space: normal; }
 .note, .basis, .percentiles { color: ${PALETTE.muted}; }
 figure.chart-figure { margin: 0.8rem 0 1.2rem; break-inside: avoid; }
 .chart-title { margin: 0 0 0.3rem; }

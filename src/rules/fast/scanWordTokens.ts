@@ -64,12 +64,47 @@ export class WordScan {
   /** A long group being tokenized in steps (`#cascading`), whose pairs go straight to `out`. */
   readonly #cascade = new GroupCascade();
   #cascading = false;
+  /** A window (see {@link beginWindow}): where the text is read up to, whether that is its end, the tokens wanted. */
+  #windowed = false;
+  #limit = 0;
+  #final = true;
+  #want = 0;
+  /**
+   * In a window: the end of the last group known complete (one the rest of the text cannot change) and
+   * how many tokens `out` held there; `enough` once `want` tokens were reached at such an end.
+   */
+  sureAt = 0;
+  sureCount = 0;
+  enough = false;
 
   /** Starts on `out.text`. */
   begin(out: TokenSpans): void {
     this.#out = out;
     this.#at = 0;
     this.#cascading = false;
+    this.#windowed = false;
+  }
+
+  /**
+   * Starts on `out.text` read from `from` (the start, or a {@link sureAt} of an earlier window of the
+   * same text) up to `limit` only, as if the text ended there; `final` says it does. The scan stops
+   * (`enough`) at the end of the first group that is complete with `out.count` at `want` or more. A
+   * group is complete when nothing after `limit` can change it: its white space and the character
+   * after that lie before `limit` (wink's rules never reach further, the time rule's one white space
+   * and suffix included), or the text ends at `limit`. Otherwise the tokens up to {@link sureCount} are
+   * the whole text's first tokens, and a longer window goes on from {@link sureAt}. Not in steps.
+   */
+  beginWindow(out: TokenSpans, from: number, limit: number, want: number, final: boolean): void {
+    this.#out = out;
+    this.#at = from;
+    this.#cascading = false;
+    this.#windowed = true;
+    this.#limit = limit;
+    this.#final = final;
+    this.#want = want;
+    this.sureAt = from;
+    this.sureCount = out.count;
+    this.enough = false;
   }
 
   /**
@@ -81,7 +116,8 @@ export class WordScan {
     const out = this.#out as TokenSpans;
     const text = out.text;
     const folded = out.folded;
-    const n = text.length;
+    const windowed = this.#windowed;
+    const n = windowed ? this.#limit : text.length;
     // All at once (Infinity), the budget is never looked at: the plain path reads no counter at all.
     const stepped = budget !== Number.POSITIVE_INFINITY;
     const work = stepped ? scanWork.units : 0;
@@ -96,6 +132,18 @@ export class WordScan {
         this.#at = i;
         return false;
       }
+      // In a window, `i` is where the last group ended: complete when what decided its end lies before
+      // the limit (the white space at `i` and the character after it), or the text ends at the limit.
+      if (windowed && (i + 2 <= n || this.#final)) {
+        this.sureAt = i;
+        this.sureCount = out.count;
+        if (out.count >= this.#want) {
+          this.enough = true;
+          this.#at = i;
+          this.#out = null;
+          return true;
+        }
+      }
       while (i < n && WHITE_SPACE_TABLE[text.charCodeAt(i)] === 1) i++;
       if (i >= n) break;
       const groupStart = i;
@@ -103,7 +151,7 @@ export class WordScan {
       // When the work comes in steps, a very long chunk goes to the cascade, which can stop inside it,
       // rather than to the plain and link scanners, which cannot (the same tokens either way).
       const long = stepped && chunkLongerThan(text, i, LONG_CHUNK);
-      let end = long ? i : scanPlainChunk(text, i, out);
+      let end = long ? i : scanPlainChunk(text, i, out, n);
       let plain = !long && (end === n || WHITE_SPACE_TABLE[text.charCodeAt(end)] === 1);
       if (!plain) out.count = saved;
       const stop = long ? -1 : end;
@@ -155,6 +203,10 @@ export class WordScan {
     }
     this.#at = n;
     this.#out = null;
+    if (windowed && this.#final) {
+      this.sureAt = n;
+      this.sureCount = out.count;
+    }
     return true;
   }
 }

@@ -92,6 +92,20 @@ describe('renderReport', () => {
     expect(page).toMatch(/chosen length 256: 9\.\d\d\u00a0% truncated/);
   });
 
+  it('shows what the model sees at each candidate length, and which end to cut', () => {
+    const report = ferryReport();
+    expect(page).toContain('<h2>What the model sees</h2>');
+    // One row a length; the chosen 256 is the fixture's own figures (9.x % of documents truncated).
+    expect(page.match(/<section id="windows">[\s\S]*?<\/section>/)?.[0].match(/<tr><th scope="row" class="num">/g)).toHaveLength(report.windows.length);
+    const chosen = report.windows.find((w) => w.candidates.includes('chosen'));
+    expect(chosen?.truncatedDocuments).toBe(report.truncatedDocuments);
+    expect(page).toMatch(/<th scope="row" class="num">256<\/th><td>chosen<\/td><td class="num">[\d,]+ \(9\.\d\d\u00a0%\)<\/td>/);
+    const known = report.suggest.cut.knownKept;
+    expect(page).toContain(
+      `<p class="cut-advice"><strong>Which end to cut:</strong> at length 256 rows keep ${known.cutEnd.toLocaleString('en-US')} known tokens when long documents lose their end, ${known.cutStart.toLocaleString('en-US')} when they lose their start: cut the end.</p>`,
+    );
+  });
+
   it('shows no NaN, Infinity or undefined, even for an empty corpus', () => {
     const empty: CoverageReport = {
       documents: 0,
@@ -116,8 +130,10 @@ describe('renderReport', () => {
         lengthFor90: 0,
         lengthFor95: 0,
         lengthFor99: 0,
+        cut: { length: 1, knownKept: { cutStart: 0, cutEnd: 0 }, cut: null },
       },
       coverage: [],
+      windows: [],
       lengthHistogram: [],
       lexicon: { fingerprint: 'sha256:00', tokens: 0, size: 2, reserved: 0 },
       capTie: null,
@@ -129,6 +145,8 @@ describe('renderReport', () => {
     expect(html).toContain('No documents, so no lengths to show.');
     expect(html).toContain('This corpus has no labels, so there are no per-label figures.');
     expect(html).toContain('No token of this corpus is out of the vocabulary.');
+    expect(html).toContain('No document has a token, so there are no row lengths to weigh.');
+    expect(html).not.toContain('Which end to cut');
     expect(html).toContain("<p class=\"note\">In the lexicon's vocabulary, no token looks like an e-mail address, URL, @mention, phone number or IP address.</p>");
     expect(html).not.toContain('<svg');
     for (const bad of ['NaN', 'Infinity', 'undefined']) expect(page).not.toContain(bad);

@@ -1,4 +1,4 @@
-import type { CoverageReport, LabelAudit } from '../../../src/audit/CoverageReport.js';
+import type { CoverageReport, LabelAudit, LengthCandidate, WindowFigures } from '../../../src/audit/CoverageReport.js';
 import type { ReportContext } from '../../../src/audit/report/ReportContext.js';
 import { summarizeLengths } from '../../../src/tally/nearestRank.js';
 
@@ -76,6 +76,39 @@ export function ferryReport(): CoverageReport {
     const t = Math.round(tokens * share);
     labels[name] = { documents: d, tokens: t, oovTokens: Math.round(t * oov), truncatedDocuments: Math.round(d * cut) };
   }
+  // What the model sees at p50, p90, p95, p99 and the chosen length, from the histogram; the OOV tokens
+  // the rows keep are invented: the corpus's rate cutting the end, 0.4 points more cutting the start.
+  const candidates: Array<[LengthCandidate, number]> = [['p50', summary.p50], ['p90', summary.p90], ['p95', summary.p95], ['p99', summary.p99], ['chosen', LENGTH]];
+  const byLength = new Map<number, LengthCandidate[]>();
+  for (const [name, l] of candidates) byLength.set(l, [...(byLength.get(l) ?? []), name]);
+  const windows: WindowFigures[] = [...byLength].sort((a, b) => a[0] - b[0]).map(([length, names]) => {
+    let cut = 0;
+    let dropped = 0;
+    let kept = 0;
+    let padding = 0;
+    for (const [l, n] of lengths) {
+      if (l > length) {
+        cut += n;
+        dropped += (l - length) * n;
+      } else padding += (length - l) * n;
+      kept += Math.min(l, length) * n;
+    }
+    const keptOov = { cutStart: Math.round(kept * (oovRate + 0.004)), cutEnd: Math.round(kept * oovRate) };
+    return {
+      length,
+      candidates: names,
+      truncatedDocuments: cut,
+      droppedTokens: dropped,
+      keptTokens: kept,
+      paddingTokens: padding,
+      paddingShare: padding / (documents * length),
+      keptOov,
+      keptOovRate: { cutStart: keptOov.cutStart / kept, cutEnd: keptOov.cutEnd / kept },
+    };
+  });
+  const chosen = windows.find((w) => w.candidates.includes('chosen')) as WindowFigures;
+  const known = { cutStart: chosen.keptTokens - (chosen.keptOov?.cutStart ?? 0), cutEnd: chosen.keptTokens - (chosen.keptOov?.cutEnd ?? 0) };
+
   const oovWords = ['hydrofoil', 'rebooking', 'e-ticket', 'skerry', 'harbourline', SCRIPT_TOKEN, 'a&b', '"quoted"', "o'clock", 'gangway', 'tidetable', 'ferrycard'];
   const topOov = oovWords.map((token, i) => ({ token, count: Math.round(2400 / (i + 1)) }));
   return {
@@ -102,8 +135,10 @@ export function ferryReport(): CoverageReport {
       lengthFor90: summary.p90,
       lengthFor95: summary.p95,
       lengthFor99: summary.p99,
+      cut: { length: LENGTH, knownKept: known, cut: 'end' },
     },
     coverage,
+    windows,
     lengthHistogram: [...lengths].sort((a, b) => a[0] - b[0]).map(([length, n]) => ({ length, documents: n })),
     lexicon: { fingerprint: `sha256:${'3f9a0c1d'.repeat(8)}`, tokens: CAP + RESERVED, size: CAP + RESERVED + 2, reserved: RESERVED },
     capTie: { cap: CAP, count: 1, tokens: 9120, kept: 2210, left: 6910, below: CAP - 2210, above: CAP + 6910 },

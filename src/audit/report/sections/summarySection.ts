@@ -6,6 +6,7 @@ import { escapeHtml } from '../escapeHtml.js';
 import { formatCount } from '../formatCount.js';
 import { formatPercent } from '../formatPercent.js';
 import { shareOf } from '../shareOf.js';
+import { cutAdviceParagraph } from './windowSection.js';
 
 /** One summary card: a headline figure with a name and a line of detail. */
 function card(name: string, figure: string, detail: string): string {
@@ -63,5 +64,5 @@ export function summarySection(report: CoverageReport): string {
   const lengths =
     `<p class="percentiles">Tokens per document (nearest rank): min ${escapeHtml(formatCount(l.min))} · median ${escapeHtml(formatCount(l.p50))} · ` +
     `p90 ${escapeHtml(formatCount(l.p90))} · p95 ${escapeHtml(formatCount(l.p95))} · p99 ${escapeHtml(formatCount(l.p99))} · max ${escapeHtml(formatCount(l.max))}</p>`;
-  return `<section id="summary"><h2>Summary</h2><div class="cards">${cards.join('')}</div>${tie}${people}${lengths}${suggestions}</section>`;
+  return `<section id="summary"><h2>Summary</h2><div class="cards">${cards.join('')}</div>${tie}${people}${lengths}${suggestions}${cutAdviceParagraph(report)}</section>`;
 }
