@@ -11,8 +11,14 @@ import { resolveRules, type TextRulesInput } from '../../src/rules/TextRules.js'
 import { Tally } from '../../src/tally/Tally.js';
 import { allocatedBytes } from '../helpers/allocatedBytes.js';
 
-/** Slack for the engine's own noise (a byte or so a call is seen now and then); any made string is larger. */
-const SLACK = 8;
+/**
+ * Slack for the engine's own noise: a byte or so a call now and then, and in some test processes
+ * (about 1 run in 4 on a busy machine, never in 10 standalone runs) 16 bytes a call on one text, the
+ * size of one boxed number, from a place not found yet. A string made a token costs at least 16 bytes
+ * for each of the 20 or more tokens of these texts, far above it (the last test checks the measure
+ * sees that).
+ */
+const SLACK = 24;
 
 const texts: string[] = [];
 beforeAll(async () => {
