@@ -4,12 +4,14 @@ import type { Lexicon } from '../lexicon/Lexicon.js';
 import type { Shape } from '../lexicon/Shape.js';
 import type { EncodeStats } from '../pipeline/EncodeStats.js';
 import type { SplitPlan } from '../split/Split.js';
+import { labelWeights } from '../training/labelWeights.js';
 import { VERSION } from '../version.js';
 import { pathFrom } from './pathFrom.js';
 
 /**
  * The version of an encoded folder's manifest.json. Version 3: keys (`files.keys`, `keyField`),
- * splits (`split`), rows per label (`labelRows`) and the bad-text policy (`badText`). Version 2: the
+ * splits (`split`), rows per label (`labelRows`), label weights (`labelWeights`) and the bad-text
+ * policy (`badText`). Version 2: the
  * shape's ends are `start`/`end` (the manifest of lexlock 0.1 carried no version and other names).
  */
 export const MANIFEST_FORMAT_VERSION = 3;
@@ -62,6 +64,7 @@ export function encodedManifest(
     files: { ids: ENCODED_FILES.ids, lengths: ENCODED_FILES.lengths, labels: labelled ? ENCODED_FILES.labels : null, keys: ENCODED_FILES.keys },
     labels: labelled ? lexicon.labels : null,
     labelRows: labelled ? stats.labelRows : null,
+    labelWeights: labelled ? weightsOf(lexicon) : null,
     unknownLabels: stats.unknownLabels,
     replacedDocuments: readStats.replaced,
     skippedDocuments: readStats.skipped,
@@ -70,4 +73,16 @@ export function encodedManifest(
     truncatedDocuments: stats.truncatedDocuments,
     droppedTokens: stats.droppedTokens,
   };
+}
+
+/**
+ * Label weights for a loss, `n / (C · n_c)` by label id from the documents of each label in the
+ * lexicon's corpus (see labelWeights), or null when the lexicon has no fit or a label had no documents.
+ */
+function weightsOf(lexicon: Lexicon): number[] | null {
+  const fit = lexicon.fit;
+  if (fit === null || lexicon.labels.length === 0) return null;
+  const byLabel = new Map(fit.labels.map((l) => [l.label, l.documents]));
+  if (lexicon.labels.some((label) => (byLabel.get(label) ?? 0) === 0)) return null;
+  return labelWeights(lexicon);
 }

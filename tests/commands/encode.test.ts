@@ -22,6 +22,17 @@ async function readNpy(path: string): Promise<{ data: number[]; shape: number[];
 }
 
 describe('lexlock encode', () => {
+  it('gives label weights n / (C · n_c) in the manifest, from the lexicon\'s label counts', async () => {
+    // Worked by hand: m.csv has 2 "delays" and 1 "praise" documents, n = 3, C = 2 (labels in string
+    // order: delays 0, praise 1): delays 3 / (2 · 2) = 0.75, praise 3 / (2 · 1) = 1.5.
+    expect((await cli('build', tmp.path('m.csv'), '-o', tmp.path('lex.json'), '--label', 'topic', '--length', '4')).code).toBe(0);
+    expect((await cli('encode', tmp.path('held.csv'), '--lexicon', tmp.path('lex.json'), '-o', tmp.path('out'))).code).toBe(0);
+    const manifest = JSON.parse(await readFile(tmp.path('out/manifest.json'), 'utf8'));
+    expect([manifest.labels, manifest.labelWeights]).toEqual([['delays', 'praise'], [0.75, 1.5]]);
+    expect((await cli('encode', tmp.path('held.csv'), '--lexicon', tmp.path('lex.json'), '-o', tmp.path('bare'), '--no-labels')).code).toBe(0);
+    expect(JSON.parse(await readFile(tmp.path('bare/manifest.json'), 'utf8')).labelWeights).toBeNull();
+  });
+
   it('an unlabelled run over a labelled run\'s folder (--force) leaves no labels.npy behind', async () => {
     expect((await cli('build', tmp.path('m.csv'), '-o', tmp.path('lex.json'), '--label', 'topic', '--length', '4')).code).toBe(0);
     expect((await cli('encode', tmp.path('held.csv'), '--lexicon', tmp.path('lex.json'), '-o', tmp.path('out'))).code).toBe(0);
