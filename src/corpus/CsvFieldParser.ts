@@ -18,21 +18,31 @@ const LEAD = 'x';
 
 type Row = string[];
 
+const NOT_SPACE = /\S/;
+
 /**
- * Splits CSV/TSV records (decoded, one record each, without its line end) into fields with fast-csv,
- * one stream for the whole file, one batch at a time: exactly one row comes back per record, in order,
- * so each row keeps the line and byte offset its record was found at.
+ * Splits CSV/TSV records (decoded, one record each, without its line end, as {@link CsvRecordScanner}
+ * in csvRecords.ts gives them) into fields, one batch at a time: exactly one row comes back per record, in order, so
+ * each row keeps the line and byte offset its record was found at. A record without a quote is its
+ * fields between delimiters (such a record holds no CR or LF: they end records outside quotes), split
+ * here; the records that hold a quote go to fast-csv, one stream for the whole file. The rows and the
+ * errors are those fast-csv gives when it splits every record (tests/corpus/CsvFieldParser.test.ts
+ * compares the two): fast-csv keeps spaces around unquoted fields (with the guard below for a first
+ * field of white space only) and gives no fields for a record of white space only.
  */
 export class CsvFieldParser {
-  readonly #delimiter: string;
+  readonly #delimiter: ',' | '\t';
+  /** Every record goes to fast-csv (the plain reading, kept to settle errors exactly and for tests). */
+  readonly #everyRecord: boolean;
   readonly #blankFirstField: RegExp;
   readonly #stream: CsvParserStream<Row, Row>;
   #rows: Row[] = [];
   #error: Error | null = null;
   #settle: () => void = () => {};
 
-  constructor(delimiter: ',' | '\t') {
+  constructor(delimiter: ',' | '\t', options: { everyRecordToFastCsv?: boolean } = {}) {
     this.#delimiter = delimiter;
+    this.#everyRecord = options.everyRecordToFastCsv ?? false;
     this.#blankFirstField = delimiter === ',' ? /^[^\S\r\n]+(?=,)/ : /^[^\S\r\n\t]+(?=\t)/;
     this.#stream = parse<Row, Row>(fastCsvOptions(delimiter));
     this.#stream.on('data', (row: Row) => {
@@ -50,6 +60,53 @@ export class CsvFieldParser {
    * stream is unusable afterwards).
    */
   async split(records: readonly string[]): Promise<Row[]> {
+    if (this.#everyRecord) return this.#splitWithFastCsv(records);
+    const rows: Row[] = new Array<Row>(records.length);
+    const quoted: string[] = [];
+    const places: number[] = [];
+    const delimiter = this.#delimiter;
+    for (let i = 0; i < records.length; i++) {
+      const record = records[i]!;
+      if (record.indexOf('"') !== -1) {
+        quoted.push(record);
+        places.push(i);
+        continue;
+      }
+      const values = record.split(delimiter);
+      // fast-csv gives no fields for a record of white space only (JavaScript's \s, as it skips it).
+      rows[i] = values.length === 1 && !NOT_SPACE.test(record) ? [] : values;
+    }
+    if (quoted.length === 0) return rows;
+    let split: Row[];
+    try {
+      split = await this.#splitWithFastCsv(quoted);
+    } catch (e) {
+      throw await this.#failureOfEvery(records, e);
+    }
+    for (let j = 0; j < split.length; j++) rows[places[j]!] = split[j]!;
+    return rows;
+  }
+
+  /**
+   * The error fast-csv gives for the whole batch when every record goes to it: a fresh stream reads
+   * the batch as this one would (each batch ends with a line feed, so nothing of the earlier ones is
+   * held), which names the same record with the same message as before quoted records were singled
+   * out. `cause` is thrown if, against expectation, the whole batch splits.
+   */
+  async #failureOfEvery(records: readonly string[], cause: unknown): Promise<unknown> {
+    const every = new CsvFieldParser(this.#delimiter, { everyRecordToFastCsv: true });
+    try {
+      await every.split(records);
+    } catch (e) {
+      return e;
+    } finally {
+      every.close();
+    }
+    return cause;
+  }
+
+  /** Every record split by fast-csv. */
+  async #splitWithFastCsv(records: readonly string[]): Promise<Row[]> {
     if (records.length === 0) return [];
     let rows: Row[];
     try {
