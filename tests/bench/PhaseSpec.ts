@@ -11,6 +11,8 @@ export type PhaseName =
   | 'encode-noop'
   | 'encode-npy'
   | 'baseline-encode'
+  /** The careful user's one script: read and tokenize each document once, keep the tokens, count, sort, encode from them. */
+  | 'baseline-one-script'
   | 'audit'
   | 'latency'
   /** Nothing: the floor of every child's memory (Node, the tsx loader, lexlock imported). */
@@ -29,7 +31,7 @@ export interface PhaseSpec {
   out: string;
   cap: number;
   length: number;
-  /** Worker threads for the build phase (default 1). */
+  /** Worker threads for the build, encode-noop and audit phases (default 1; audit runs `auditOnThreads` when given). */
   threads?: number;
 }
 

@@ -1,6 +1,7 @@
 import { readFile } from 'node:fs/promises';
 import {
   auditCorpus,
+  auditOnThreads,
   encodeCorpus,
   freeze,
   loadLexicon,
@@ -58,18 +59,50 @@ async function measureBuild(spec: PhaseSpec): Promise<Measured> {
   return { seconds: time, figures: { distinctTokens: tally.types, size: lexicon.size } };
 }
 
+/** Most frequent first, ties in code-unit order, the cap's tokens kept. */
+function ranked(counts: Map<string, number>, cap: number): Array<[string, number]> {
+  return [...counts].sort((a, b) => b[1] - a[1] || (a[0] < b[0] ? -1 : a[0] > b[0] ? 1 : 0)).slice(0, cap);
+}
+
 async function measureBaselineBuild(spec: PhaseSpec): Promise<Measured> {
   const start = process.hrtime.bigint();
   const counts = new Map<string, number>();
   for await (const text of baselineTexts(spec.corpus)) for (const t of plainTokens(text)) counts.set(t, (counts.get(t) ?? 0) + 1);
-  const ranked = [...counts].sort((a, b) => b[1] - a[1] || (a[0] < b[0] ? -1 : a[0] > b[0] ? 1 : 0)).slice(0, spec.cap);
-  return { seconds: seconds(start), figures: { distinctTokens: counts.size, kept: ranked.length } };
+  const kept = ranked(counts, spec.cap);
+  return { seconds: seconds(start), figures: { distinctTokens: counts.size, kept: kept.length } };
+}
+
+/**
+ * Fit and encode in one script, as a careful user writes it: each document read and tokenized once
+ * (the same reader and tokenizer as the two-step baseline), every document's tokens kept in memory,
+ * counted in a Map, sorted, then each kept token list looked up and padded into a row (ids from 2:
+ * 0 pads, 1 is out of vocabulary; the row is filled and dropped, as the baseline encode does).
+ */
+async function measureBaselineOneScript(spec: PhaseSpec): Promise<Measured> {
+  const start = process.hrtime.bigint();
+  const documents: string[][] = [];
+  const counts = new Map<string, number>();
+  for await (const text of baselineTexts(spec.corpus)) {
+    const tokens = plainTokens(text);
+    documents.push(tokens);
+    for (const t of tokens) counts.set(t, (counts.get(t) ?? 0) + 1);
+  }
+  const ids = new Map(ranked(counts, spec.cap).map(([t], i) => [t, i + 2]));
+  const row = new Int32Array(spec.length);
+  let checksum = 0;
+  for (const tokens of documents) {
+    row.fill(0);
+    const kept = Math.min(tokens.length, spec.length);
+    for (let i = 0; i < kept; i++) row[spec.length - kept + i] = ids.get(tokens[i] ?? '') ?? 1;
+    checksum += row[spec.length - 1] ?? 0;
+  }
+  return { seconds: seconds(start), figures: { documents: documents.length, distinctTokens: counts.size, checksum } };
 }
 
 async function measureEncodeNoop(spec: PhaseSpec): Promise<Measured> {
   const lexicon = await loadLexicon(spec.lexicon);
   const start = process.hrtime.bigint();
-  const stats = await encodeCorpus(readCorpus(spec.corpus, corpusOptions(spec)), lexicon, lexicon.shape, { row() {} });
+  const stats = await encodeCorpus(readCorpus(spec.corpus, corpusOptions(spec)), lexicon, lexicon.shape, { row() {} }, { threads: spec.threads ?? 1 });
   return { seconds: seconds(start), figures: { documents: stats.documents, tokens: stats.tokens } };
 }
 
@@ -92,7 +125,9 @@ async function measureBaselineEncode(spec: PhaseSpec): Promise<Measured> {
 async function measureAudit(spec: PhaseSpec): Promise<Measured> {
   const lexicon = await loadLexicon(spec.lexicon);
   const start = process.hrtime.bigint();
-  const report = await auditCorpus(readCorpus(spec.corpus, corpusOptions(spec)), lexicon);
+  const documents = readCorpus(spec.corpus, corpusOptions(spec));
+  // The table's audit is `auditCorpus` itself; the thread-scaling runs (threads given) use auditOnThreads, 1 and 2 alike.
+  const report = spec.threads === undefined ? await auditCorpus(documents, lexicon) : await auditOnThreads(documents, lexicon, { threads: spec.threads });
   return { seconds: seconds(start), figures: { oovRate: report.oovRate } };
 }
 
@@ -194,6 +229,7 @@ const PHASES: Record<Exclude<PhaseSpec['phase'], 'build-cli' | 'build-encode-cli
   'baseline-build': measureBaselineBuild,
   'encode-noop': measureEncodeNoop,
   'baseline-encode': measureBaselineEncode,
+  'baseline-one-script': measureBaselineOneScript,
   audit: measureAudit,
   latency: measureLatency,
   idle: () => Promise.resolve({ seconds: 0, figures: {} }),

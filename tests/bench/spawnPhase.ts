@@ -14,7 +14,11 @@ function cliArguments(spec: PhaseSpec): string[] | null {
   };
   if (spec.phase === 'build-cli') return build(`${spec.lexicon}.cli.json`, []);
   if (spec.phase === 'build-encode-cli') return build(`${spec.lexicon}.one-pass.json`, ['--encode', `${spec.out}-one-pass`]);
-  if (spec.phase === 'encode-npy') return ['encode', spec.corpus, '--lexicon', spec.lexicon, '-o', spec.out, '--quiet', '--force'];
+  if (spec.phase === 'encode-npy') {
+    // A lexicon with labels needs its corpus read with them (encode stops with MISSING_LABELS otherwise).
+    const args = ['encode', spec.corpus, '--lexicon', spec.lexicon, '-o', spec.out, '--quiet', '--force'];
+    return spec.label === undefined ? args : [...args, '--label', spec.label];
+  }
   return null;
 }
 
