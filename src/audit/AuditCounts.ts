@@ -1,7 +1,15 @@
 import type { Lexicon } from '../lexicon/Lexicon.js';
+import { scanTokens } from '../rules/scanTokens.js';
+import { TokenSpans } from '../rules/TokenSpans.js';
 import { Tally, type TallyCounts } from '../tally/Tally.js';
 import type { LabelAudit } from './CoverageReport.js';
 import { OovPositions, type OovPositionCounts } from './OovPositions.js';
+
+/** Figures kept an id in AuditCounts' #known: occurrences, documents, the last document counted. */
+const KNOWN_FIGURES = 3;
+
+/** Where {@link AuditCounts.add} leaves a document's tokens (reused: one document at a time). */
+const scanned = new TokenSpans();
 
 /** The additive figures of an audit, as a worker thread sends them back. */
 export interface AuditParts {
@@ -20,7 +28,18 @@ export interface AuditParts {
  * label. Everything adds up, so counts made over parts of a corpus (threads) merge to the same.
  */
 export class AuditCounts implements Omit<AuditParts, 'tally'> {
-  readonly tally: Tally;
+  /** Every document's totals, and the occurrences of tokens outside the lexicon (see {@link AuditCounts.tally}). */
+  readonly #tally: Tally;
+  /**
+   * Occurrences, documents and last document (numbered here) of each lexicon token, by id, three
+   * figures an id: a token the lexicon knows is counted by its id, found by the one lookup that gives
+   * the id, rather than looked up a second time in the tally.
+   */
+  #known: Float64Array;
+  /** The current document's ids, then the places of its OOV tokens (room for the longest document so far). */
+  #ids = new Int32Array(256);
+  #oovPlaces = new Int32Array(256);
+  #document = 0;
   readonly oovPositions = new OovPositions();
   readonly labels = new Map<string, LabelAudit>();
   oovTokens = 0;
@@ -33,26 +52,78 @@ export class AuditCounts implements Omit<AuditParts, 'tally'> {
   constructor(lexicon: Lexicon, length: number | null) {
     this.lexicon = lexicon;
     this.length = length;
-    this.tally = new Tally(lexicon.rules);
+    this.#tally = new Tally(lexicon.rules);
+    this.#known = new Float64Array(KNOWN_FIGURES * (lexicon.size + 1));
   }
 
-  /** Counts one document through the lexicon's own tokenize and ids. */
+  /** Distinct tokens kept so far outside the lexicon (what grows with the corpus), without settling the counts. */
+  get keptTypes(): number {
+    return this.#tally.types;
+  }
+
+  /** The corpus tally: every token's occurrences and documents, every document's length and label. */
+  get tally(): Tally {
+    this.#settle();
+    return this.#tally;
+  }
+
+  /**
+   * Counts one document through the lexicon's own tokenizing and ids: its tokens are found once and
+   * looked up where they lie in the text, by the lexicon and by the tally (no string made for a token
+   * already counted).
+   */
   add(text: string, label: string | undefined): void {
-    const tokens = this.lexicon.tokenize(text);
-    const ids = this.lexicon.idsOf(tokens);
-    this.tally.addTokens(tokens, label);
+    scanTokens(text, this.lexicon.rules, scanned, true);
+    const n = scanned.count;
+    if (this.#ids.length < n) {
+      const room = Math.max(n, 2 * this.#ids.length);
+      this.#ids = new Int32Array(room);
+      this.#oovPlaces = new Int32Array(room);
+    }
+    const ids = this.lexicon.idsOfScanned(scanned, this.#ids);
+    const oovId = this.lexicon.oovId;
+    const known = this.#known;
+    const document = ++this.#document;
+    const oovPlaces = this.#oovPlaces;
     let oov = 0;
-    for (let i = 0; i < ids.length; i++) if (ids[i] === this.lexicon.oovId) oov += 1;
+    for (let i = 0; i < n; i++) {
+      const id = ids[i] as number;
+      if (id === oovId) {
+        oovPlaces[oov++] = i;
+        continue;
+      }
+      const at = KNOWN_FIGURES * id;
+      known[at] = (known[at] as number) + 1;
+      if (known[at + 2] !== document) {
+        known[at + 2] = document;
+        known[at + 1] = (known[at + 1] as number) + 1;
+      }
+    }
+    this.#tally.addPickedSpans(scanned, label, oovPlaces, oov);
     this.oovTokens += oov;
-    if (oov > 0) this.oovPositions.add(ids, this.lexicon.oovId);
-    const cut = this.length !== null && ids.length > this.length;
+    if (oov > 0) this.oovPositions.addPlaces(oovPlaces, oov, n);
+    const cut = this.length !== null && n > this.length;
     if (this.length !== null) {
       if (cut) {
         this.truncatedDocuments += 1;
-        this.droppedTokens += ids.length - this.length;
-      } else this.paddingTokens += this.length - ids.length;
+        this.droppedTokens += n - this.length;
+      } else this.paddingTokens += this.length - n;
     }
-    if (label !== undefined) this.addLabel(label, { documents: 1, tokens: ids.length, oovTokens: oov, truncatedDocuments: cut ? 1 : 0 });
+    if (label !== undefined) this.addLabel(label, { documents: 1, tokens: n, oovTokens: oov, truncatedDocuments: cut ? 1 : 0 });
+  }
+
+  /** Moves the counts kept by id into the tally (as tokens), so that the tally holds them all. */
+  #settle(): void {
+    const known = this.#known;
+    for (let id = 0; id * KNOWN_FIGURES < known.length; id++) {
+      const at = KNOWN_FIGURES * id;
+      const count = known[at] as number;
+      if (count === 0) continue;
+      this.#tally.addToken(this.lexicon.tokenAt(id) as string, count, known[at + 1] as number);
+      known[at] = 0;
+      known[at + 1] = 0;
+      known[at + 2] = 0;
+    }
   }
 
   /** Adds counts made elsewhere (a worker's batch) with the same lexicon and length. */

@@ -37,6 +37,22 @@ export class OovPositions implements OovPositionCounts {
     }
   }
 
+  /**
+   * Counts one document of `length` tokens whose OOV tokens stand at the first `count` places of
+   * `places` (ascending): the same counts as {@link OovPositions.add} of its ids, in time of its OOV tokens.
+   */
+  addPlaces(places: Int32Array, count: number, length: number): void {
+    const m = length < OOV_POSITIONS ? length : OOV_POSITIONS;
+    if (m > this.fromStart.length) this.#grow(m);
+    const { fromStart, fromEnd } = this;
+    for (let p = 0; p < count; p++) {
+      const i = places[p] as number;
+      if (i < m) fromStart[i] = (fromStart[i] as number) + 1;
+      const j = length - 1 - i;
+      if (j < m) fromEnd[j] = (fromEnd[j] as number) + 1;
+    }
+  }
+
   /** Adds counts made elsewhere (a worker's). */
   merge(other: OovPositionCounts): void {
     const m = other.fromStart.length;

@@ -231,13 +231,30 @@ export class Lexicon {
     return out;
   }
 
+  /**
+   * The ids of the tokens a scan under this lexicon's rules left in `scanned` (see scanTokens), in
+   * order, variable length: what `encode` gives without a shape, for a caller that also needs the tokens.
+   * Written into `into` when it has room (the ids are then its first `scanned.count` places).
+   */
+  idsOfScanned(scanned: TokenSpans, into?: Int32Array): Int32Array {
+    const count = scanned.count;
+    const out = into !== undefined && into.length >= count ? into : new Int32Array(count);
+    for (let k = 0; k < count; k++) out[k] = this.#idOfToken(scanned, k);
+    return out;
+  }
+
   /** The id of token `k` of the text encode scanned last. */
   private idOfSpan(k: number): number {
-    const start = spans.starts[k] as number;
+    return this.#idOfToken(spans, k);
+  }
+
+  /** The id of token `k` of `scanned`, looked up where it lies in the scanned text. */
+  #idOfToken(scanned: TokenSpans, k: number): number {
+    const start = scanned.starts[k] as number;
     const number =
       start >= 0
-        ? this.index.indexOfSpan(spans.text, start, spans.ends[k] as number, spans.folded)
-        : this.index.indexOf(spans.strings[k] as string);
+        ? this.index.indexOfSpan(scanned.text, start, scanned.ends[k] as number, scanned.folded)
+        : this.index.indexOf(scanned.strings[k] as string);
     return number < 0 ? this.oovId : number + this.firstTokenId;
   }
 

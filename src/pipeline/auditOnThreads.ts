@@ -20,7 +20,7 @@ export async function auditOnThreads(
 ): Promise<CoverageReport> {
   const threads = options.threads ?? 1;
   // One thread: the event loop still gets a turn every 100 ms or so, a very long document included.
-  if (threads <= 1) return auditCorpus(withTurns(documents, { rules: lexicon.rules, strings: true }), lexicon, options);
+  if (threads <= 1) return auditCorpus(withTurns(documents, { rules: lexicon.rules, strings: false }), lexicon, options);
   const shape = options.shape === undefined ? lexicon.shape : options.shape;
   const length = shape === null ? null : shape.length;
   const counts = new AuditCounts(lexicon, length);

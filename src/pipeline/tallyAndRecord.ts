@@ -2,7 +2,6 @@ import { inputError } from '../LexlockError.js';
 import { NumberSpill } from '../files/NumberSpill.js';
 import type { Lexicon } from '../lexicon/Lexicon.js';
 import type { Shape } from '../lexicon/Shape.js';
-import { tokenize } from '../rules/tokenize.js';
 import type { TextRules } from '../rules/TextRules.js';
 import { Tally } from '../tally/Tally.js';
 import { IN_FLIGHT_PER_THREAD, batchesOf, inOrder } from '../workers/batches.js';
@@ -66,9 +65,8 @@ export async function tallyAndRecord(
   const threads = options.threads ?? 1;
   try {
     if (threads <= 1) {
-      let numbers = new Int32Array(1024);
       let place = 0;
-      const turns = new LoopTurns({ rules, strings: true });
+      const turns = new LoopTurns({ rules, strings: false });
       try {
         for await (const doc of documents) {
           place += 1;
@@ -76,11 +74,9 @@ export async function tallyAndRecord(
           const label = typeof doc === 'string' ? undefined : doc.label;
           const wait = turns.before(text);
           if (wait !== null) await wait;
-          const tokens = tokenize(text, rules);
-          if (tokens.length > numbers.length) numbers = new Int32Array(Math.max(tokens.length, numbers.length * 2));
-          tally.addNumbered(tokens, label, numbers);
+          const numbers = tally.addNumberedText(text, label);
           keeper.see(text);
-          await spill.add(labels.of(label), 0, numbers, tokens.length, keyOf(doc) ?? String(place));
+          await spill.add(labels.of(label), 0, numbers, numbers.length, keyOf(doc) ?? String(place));
         }
       } finally {
         turns.done();

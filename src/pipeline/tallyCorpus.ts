@@ -58,7 +58,7 @@ export async function tallyCorpus(
   const keeper = snippetKeeper();
   const threads = options.threads ?? 1;
   if (threads <= 1) {
-    const turns = new LoopTurns({ rules, strings: true });
+    const turns = new LoopTurns({ rules, strings: false });
     try {
       for await (const doc of documents) {
         const text = typeof doc === 'string' ? doc : doc.text;

@@ -67,6 +67,16 @@ export class SpanIndex {
     return this.#keys[index];
   }
 
+  /** Every string, in the order added (number 0 first). */
+  keys(): IterableIterator<string> {
+    return this.#keys.values();
+  }
+
+  /** Every string in the order added, as a new array. */
+  keyList(): string[] {
+    return this.#keys.slice();
+  }
+
   /** The number of `key`, or -1. */
   indexOf(key: string): number {
     return this.indexOfSpan(key, 0, key.length, false);

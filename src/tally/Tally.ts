@@ -1,8 +1,10 @@
 import { LexlockError } from '../LexlockError.js';
 import { canonicalJson } from '../artifact/canonicalJson.js';
 import { detached } from '../rules/detached.js';
-import { tokenize } from '../rules/tokenize.js';
+import { scanTokens } from '../rules/scanTokens.js';
+import { SpanIndex } from '../rules/SpanIndex.js';
 import type { TextRules } from '../rules/TextRules.js';
+import { TokenSpans } from '../rules/TokenSpans.js';
 import { MAP_ENTRIES_MOST, TokenMap } from './TokenMap.js';
 
 /** A text with an optional label, as corpus readers and callers hand them in. */
@@ -31,17 +33,17 @@ export interface TallyCounts {
   readonly labels: ReadonlyMap<string, LabelCounts>;
 }
 
-/** Options of a {@link Tally}. */
-export interface TallyOptions {
-  /**
-   * Tokens one internal Map holds before the next one starts (default {@link MAP_ENTRIES_MOST}; a
-   * JavaScript Map holds at most 2^24). Tests set it low to exercise tallies of more tokens than that.
-   */
-  entriesPerMap?: number;
-}
-
 /** Room for this many tokens' figures at first; it doubles when full. */
 const FIRST_ROOM = 1024;
+
+/** Figures kept a token, and where each is among them (see Tally's #figures). */
+const FIGURES = 3;
+const COUNT = 0;
+const DOCUMENTS = 1;
+const LAST = 2;
+
+/** Where {@link Tally.add} and {@link Tally.addNumberedText} leave a text's tokens (reused: one text at a time). */
+const scanned = new TokenSpans();
 
 /**
  * Counts over a corpus (encoding contract, rule 3): occurrences and document frequency per token,
@@ -60,44 +62,46 @@ export class Tally {
   readonly labels = new Map<string, LabelCounts>();
   documents = 0;
   tokens = 0;
-  // Token -> its number (the order first counted, from 0); the figures of token n are at [n] of the
-  // arrays below, so a token costs its string and a map entry, not an object of its own.
-  readonly #numbers: TokenMap<number>;
-  #count: Float64Array = new Float64Array(FIRST_ROOM);
-  #documentsOf: Float64Array = new Float64Array(FIRST_ROOM);
-  /** The number of the last document counted with token n in it (document frequency is counted once a document); 0 for none. */
-  #last: Float64Array = new Float64Array(FIRST_ROOM);
+  // Token -> its number (the order first counted, from 0), found by a span of a text as well as by a
+  // string, so counting a text makes no string for a token already counted; the figures of token n
+  // are at [n] of the arrays below, so a token costs its string and an index entry, not an object.
+  readonly #numbers = new SpanIndex();
+  /**
+   * Three figures a token, side by side so that counting one reads one place: at [3n] token n's
+   * occurrences, at [3n + 1] the documents it occurs in, at [3n + 2] the number of the last document
+   * counted with it (document frequency is counted once a document; 0 for none).
+   */
+  #figures: Float64Array = new Float64Array(FIRST_ROOM * FIGURES);
   // Snapshots handed out by `counts` and `documentFrequency`, dropped when the tally changes.
   #counts: ReadonlyMap<string, number> | null = null;
   #frequency: ReadonlyMap<string, number> | null = null;
 
-  constructor(rules: TextRules, options: TallyOptions = {}) {
+  constructor(rules: TextRules) {
     this.rules = rules;
-    this.#numbers = new TokenMap(options.entriesPerMap);
   }
 
   /** Occurrences of `token` (0 when never counted). */
   countOf(token: string): number {
-    const n = this.#numbers.get(token);
-    return n === undefined ? 0 : (this.#count[n] as number);
+    const n = this.#numbers.indexOf(token);
+    return n < 0 ? 0 : (this.#figures[FIGURES * n + COUNT] as number);
   }
 
   /** The number of `token`: its place in the order first counted (as {@link Tally.entries}), or -1. */
   numberOf(token: string): number {
-    return this.#numbers.get(token) ?? -1;
+    return this.#numbers.indexOf(token);
   }
 
   /** Documents `token` occurs in (0 when never counted). */
   documentsOf(token: string): number {
-    const n = this.#numbers.get(token);
-    return n === undefined ? 0 : (this.#documentsOf[n] as number);
+    const n = this.#numbers.indexOf(token);
+    return n < 0 ? 0 : (this.#figures[FIGURES * n + DOCUMENTS] as number);
   }
 
   /** Every counted token with its occurrences and document frequency, in the order first counted. */
   *entries(): IterableIterator<[token: string, count: number, documents: number]> {
     let n = 0;
     for (const token of this.#numbers.keys()) {
-      yield [token, this.#count[n] as number, this.#documentsOf[n] as number];
+      yield [token, this.#figures[FIGURES * n + COUNT] as number, this.#figures[FIGURES * n + DOCUMENTS] as number];
       n++;
     }
   }
@@ -105,7 +109,7 @@ export class Tally {
   /** Calls `visit` with every counted token and its occurrences, in the order first counted (no pair made for each). */
   forEachCount(visit: (token: string, count: number) => void): void {
     let n = 0;
-    for (const token of this.#numbers.keys()) visit(token, this.#count[n++] as number);
+    for (const token of this.#numbers.keys()) visit(token, this.#figures[FIGURES * n++ + COUNT] as number);
   }
 
   /** Every counted token, in the order first counted. */
@@ -115,18 +119,18 @@ export class Tally {
 
   /** Occurrences of every counted token, in the order first counted (index n: token number n). */
   countList(): Float64Array {
-    return this.#count.slice(0, this.#numbers.size);
+    return this.#column(COUNT);
   }
 
   /** Occurrences per token: a read-only snapshot, made once and kept until the tally changes. */
   get counts(): ReadonlyMap<string, number> {
-    if (this.#counts === null) this.#counts = this.#snapshot(this.#count);
+    if (this.#counts === null) this.#counts = this.#snapshot(COUNT);
     return this.#counts;
   }
 
   /** Documents each token occurs in: a read-only snapshot, as {@link Tally.counts}. */
   get documentFrequency(): ReadonlyMap<string, number> {
-    if (this.#frequency === null) this.#frequency = this.#snapshot(this.#documentsOf);
+    if (this.#frequency === null) this.#frequency = this.#snapshot(DOCUMENTS);
     return this.#frequency;
   }
 
@@ -137,15 +141,7 @@ export class Tally {
 
   /** Counts one document's tokens (already tokenized under `this.rules`). */
   addTokens(tokens: readonly string[], label?: string): this {
-    return this.#add(tokens, label, null, null);
-  }
-
-  /**
-   * Counts one document (documents, tokens, length, label) but keeps per-token counts only for the
-   * tokens `keep` accepts (null: all), for a second pass that counts known candidates exactly.
-   */
-  addSome(tokens: readonly string[], label: string | undefined, keep: ReadonlySet<string> | null): this {
-    return this.#add(tokens, label, keep, null);
+    return this.#add(tokens, label, null);
   }
 
   /**
@@ -153,38 +149,104 @@ export class Tally {
    * (see {@link Tally.numberOf}) into `numbers`, which must hold at least `tokens.length`.
    */
   addNumbered(tokens: readonly string[], label: string | undefined, numbers: Int32Array): this {
-    return this.#add(tokens, label, null, numbers);
+    return this.#add(tokens, label, numbers);
   }
 
-  #add(tokens: readonly string[], label: string | undefined, keep: ReadonlySet<string> | null, numbers: Int32Array | null): this {
-    this.#changed();
-    this.documents += 1;
-    const document = this.documents;
-    this.tokens += tokens.length;
-    this.lengths.set(tokens.length, (this.lengths.get(tokens.length) ?? 0) + 1);
-    const map = this.#numbers;
+  /**
+   * Tokenizes `text` under `this.rules` and counts it as {@link Tally.add} does; returns each token's
+   * number (see {@link Tally.numberOf}), in order.
+   */
+  addNumberedText(text: string, label?: string): Int32Array {
+    scanTokens(text, this.rules, scanned, true);
+    const numbers = new Int32Array(scanned.count);
+    this.addSpans(scanned, label, numbers);
+    return numbers;
+  }
+
+  /**
+   * Counts one document given as the tokens a scan left in `spans` (see {@link scanTokens}, under
+   * `this.rules`): each token is looked up where it lies in the scanned text, so only a token never
+   * counted before becomes a string. With `numbers` (at least `spans.count` long), writes each token's
+   * number there.
+   */
+  addSpans(spans: TokenSpans, label?: string, numbers: Int32Array | null = null): this {
+    const total = this.#begin(spans.count);
+    const index = this.#numbers;
+    const { text, starts, ends, strings, folded } = spans;
+    for (let k = 0; k < total; k++) {
+      const start = starts[k] as number;
+      const n = start >= 0 ? index.indexOfSpan(text, start, ends[k] as number, folded) : index.indexOf(strings[k] as string);
+      const counted = n >= 0 ? this.#countAgain(n) : this.#countNew(spans.tokenAt(k));
+      if (numbers !== null) numbers[k] = counted;
+    }
+    if (label !== undefined) addLabel(this.labels, label, 1, total);
+    return this;
+  }
+
+  /**
+   * Counts one document given as a scan's tokens, as {@link Tally.addSpans} does (documents, tokens,
+   * length, label), but keeps per-token figures only for the tokens at the first `count` places of
+   * `picked` (in order): a caller that counts the other tokens itself (an audit counts known tokens
+   * by id) adds those with {@link Tally.addToken}.
+   */
+  addPickedSpans(spans: TokenSpans, label: string | undefined, picked: Int32Array, count: number): this {
+    this.#begin(spans.count);
+    const index = this.#numbers;
+    const { text, starts, ends, strings, folded } = spans;
+    for (let p = 0; p < count; p++) {
+      const k = picked[p] as number;
+      const start = starts[k] as number;
+      const n = start >= 0 ? index.indexOfSpan(text, start, ends[k] as number, folded) : index.indexOf(strings[k] as string);
+      if (n >= 0) this.#countAgain(n);
+      else this.#countNew(spans.tokenAt(k));
+    }
+    if (label !== undefined) addLabel(this.labels, label, 1, spans.count);
+    return this;
+  }
+
+  #add(tokens: readonly string[], label: string | undefined, numbers: Int32Array | null): this {
+    this.#begin(tokens.length);
+    const index = this.#numbers;
     for (let k = 0; k < tokens.length; k++) {
       const t = tokens[k] as string;
-      if (keep !== null && !keep.has(t)) continue;
-      let n = map.get(t);
-      if (n === undefined) {
-        n = this.#newNumber(detached(t));
-        this.#count[n] = 1;
-        this.#documentsOf[n] = 1;
-        this.#last[n] = document;
-      } else {
-        const count = this.#count;
-        count[n] = (count[n] as number) + 1;
-        if (this.#last[n] !== document) {
-          this.#last[n] = document;
-          const documents = this.#documentsOf;
-          documents[n] = (documents[n] as number) + 1;
-        }
-      }
-      if (numbers !== null) numbers[k] = n;
+      const n = index.indexOf(t);
+      const counted = n >= 0 ? this.#countAgain(n) : this.#countNew(t);
+      if (numbers !== null) numbers[k] = counted;
     }
     if (label !== undefined) addLabel(this.labels, label, 1, tokens.length);
     return this;
+  }
+
+  /** Counts a new document of `tokens` tokens (its length); returns `tokens`. */
+  #begin(tokens: number): number {
+    this.#changed();
+    this.documents += 1;
+    this.tokens += tokens;
+    this.lengths.set(tokens, (this.lengths.get(tokens) ?? 0) + 1);
+    return tokens;
+  }
+
+  /** One more occurrence of token `n` in the document being counted; returns `n`. */
+  #countAgain(n: number): number {
+    const figures = this.#figures;
+    const at = FIGURES * n;
+    figures[at + COUNT] = (figures[at + COUNT] as number) + 1;
+    const document = this.documents;
+    if (figures[at + LAST] !== document) {
+      figures[at + LAST] = document;
+      figures[at + DOCUMENTS] = (figures[at + DOCUMENTS] as number) + 1;
+    }
+    return n;
+  }
+
+  /** The first occurrence of `token` (not counted before), in the document being counted; returns its number. */
+  #countNew(token: string): number {
+    const n = this.#newNumber(detached(token));
+    const at = FIGURES * n;
+    this.#figures[at + COUNT] = 1;
+    this.#figures[at + DOCUMENTS] = 1;
+    this.#figures[at + LAST] = this.documents;
+    return n;
   }
 
   /**
@@ -199,47 +261,50 @@ export class Tally {
 
   /** {@link Tally.addToken} without the cache reset; returns the token's number. */
   #addCounts(token: string, count: number, documents: number): number {
-    let n = this.#numbers.get(token);
-    if (n === undefined) {
+    let n = this.#numbers.indexOf(token);
+    if (n < 0) {
       n = this.#newNumber(token);
-      this.#count[n] = count;
-      this.#documentsOf[n] = documents;
+      this.#figures[FIGURES * n + COUNT] = count;
+      this.#figures[FIGURES * n + DOCUMENTS] = documents;
     } else {
-      this.#count[n] = (this.#count[n] as number) + count;
-      this.#documentsOf[n] = (this.#documentsOf[n] as number) + documents;
+      const at = FIGURES * n;
+      this.#figures[at + COUNT] = (this.#figures[at + COUNT] as number) + count;
+      this.#figures[at + DOCUMENTS] = (this.#figures[at + DOCUMENTS] as number) + documents;
     }
     // 0 matches no document counted here, so a later document still counts as a new one.
-    this.#last[n] = 0;
+    this.#figures[FIGURES * n + LAST] = 0;
     return n;
   }
 
   /** Numbers a new token, making room for its figures. */
   #newNumber(token: string): number {
     const n = this.#numbers.size;
-    if (n === this.#count.length) {
-      const room = n * 2;
-      this.#count = grown(this.#count, room);
-      this.#documentsOf = grown(this.#documentsOf, room);
-      this.#last = grown(this.#last, room);
-    }
-    this.#numbers.add(token, n);
+    if (FIGURES * n === this.#figures.length) this.#figures = grown(this.#figures, this.#figures.length * 2);
+    this.#numbers.add(token);
     return n;
   }
 
   /** Token -> figure n of `figures`, for every token: a Map (a {@link TokenMap} past what one Map holds). */
-  #snapshot(figures: Float64Array): ReadonlyMap<string, number> {
+  #snapshot(figure: number): ReadonlyMap<string, number> {
     const out = this.#numbers.size <= MAP_ENTRIES_MOST ? new Map<string, number>() : new TokenMap<number>();
     let n = 0;
-    for (const token of this.#numbers.keys()) out.set(token, figures[n++] as number);
+    const figures = this.#figures;
+    for (const token of this.#numbers.keys()) out.set(token, figures[FIGURES * n++ + figure] as number);
     return out;
   }
 
-  /** Tokenizes and counts one text (or labelled text); returns its tokens. */
-  add(item: string | LabelledText): string[] {
-    const text = typeof item === 'string' ? item : item.text;
-    const tokens = tokenize(text, this.rules);
-    this.addTokens(tokens, typeof item === 'string' ? undefined : item.label);
-    return tokens;
+  /** Figure `figure` (COUNT or DOCUMENTS) of every token, in the order first counted. */
+  #column(figure: number): Float64Array {
+    const out = new Float64Array(this.#numbers.size);
+    const figures = this.#figures;
+    for (let n = 0; n < out.length; n++) out[n] = figures[FIGURES * n + figure] as number;
+    return out;
+  }
+
+  /** Tokenizes and counts one text (or labelled text), making no string for a token already counted. */
+  add(item: string | LabelledText): this {
+    if (typeof item === 'string') return this.addSpans(scanTokens(item, this.rules, scanned, true));
+    return this.addSpans(scanTokens(item.text, this.rules, scanned, true), item.label);
   }
 
   /** Adds another tally's counts to this one. Refuses tallies counted under other rules. */
@@ -275,9 +340,8 @@ export class Tally {
 
   /** The counts as flat arrays, to send to another thread (structured cloning copies arrays fast). */
   toCounts(): TallyCounts {
-    const n = this.#numbers.size;
     const { documents, tokens, lengths, labels } = this;
-    return { documents, tokens, types: [...this.#numbers.keys()], occurrences: this.#count.slice(0, n), documentFrequency: this.#documentsOf.slice(0, n), lengths, labels };
+    return { documents, tokens, types: this.#numbers.keyList(), occurrences: this.#column(COUNT), documentFrequency: this.#column(DOCUMENTS), lengths, labels };
   }
 
   /** Counts texts from a synchronous iterable. */

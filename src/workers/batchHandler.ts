@@ -1,7 +1,6 @@
 import { AuditCounts } from '../audit/AuditCounts.js';
 import { isLexlockError } from '../LexlockError.js';
 import { Lexicon } from '../lexicon/Lexicon.js';
-import { tokenize } from '../rules/tokenize.js';
 import { Tally } from '../tally/Tally.js';
 import type { Batch, NumberedBatch, WorkerReply, WorkerSetup } from './messages.js';
 
@@ -63,12 +62,7 @@ export function batchHandler(setup: WorkerSetup, targets: LocalTargets = {}, ind
       const t = (tally ??= targets.tally ?? new Tally(setup.rules));
       let numbered: NumberedBatch | undefined;
       if (setup.numbered === true) {
-        const rows = batch.texts.map((text, i) => {
-          const tokens = tokenize(text, setup.rules);
-          const numbers = new Int32Array(tokens.length);
-          t.addNumbered(tokens, batch.labels[i] ?? undefined, numbers);
-          return numbers;
-        });
+        const rows = batch.texts.map((text, i) => t.addNumberedText(text, batch.labels[i] ?? undefined));
         const { ids, lengths } = joinRows(rows);
         numbered = { numbers: ids, lengths, group: group() };
       } else batch.texts.forEach((text, i) => t.add({ text, label: batch.labels[i] ?? undefined }));
@@ -79,7 +73,7 @@ export function batchHandler(setup: WorkerSetup, targets: LocalTargets = {}, ind
     if (setup.kind === 'audit') {
       const a = (audit ??= targets.audit ?? new AuditCounts(lex, setup.length));
       batch.texts.forEach((text, i) => a.add(text, batch.labels[i] ?? undefined));
-      return a !== targets.audit && a.tally.types >= KEPT_TYPES ? take(batch.id) : { id: batch.id, kept: true };
+      return a !== targets.audit && a.keptTypes >= KEPT_TYPES ? take(batch.id) : { id: batch.id, kept: true };
     }
     return { id: batch.id, encoded: joinRows(batch.texts.map((text) => lex.encode(text, { shape: null }))) };
   };

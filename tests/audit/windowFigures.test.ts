@@ -178,4 +178,20 @@ describe('window figures against a plain re-computation', () => {
     expect(positions.keptOov(10, 'start')).toBe(3);
     expect(positions.fromStart.length).toBe(64);
   });
+
+  it('OovPositions.addPlaces counts as add of the ids does (property)', () => {
+    fc.assert(
+      fc.property(fc.array(fc.array(fc.constantFrom(1, 1, 2, 3), { maxLength: 90 }), { maxLength: 6 }), (documents) => {
+        const byIds = new OovPositions();
+        const byPlaces = new OovPositions();
+        for (const ids of documents) {
+          byIds.add(ids, 1);
+          const places = Int32Array.from(ids.flatMap((id, i) => (id === 1 ? [i] : [])));
+          byPlaces.addPlaces(places, places.length, ids.length);
+        }
+        expect([[...byPlaces.fromStart], [...byPlaces.fromEnd]]).toEqual([[...byIds.fromStart], [...byIds.fromEnd]]);
+      }),
+      { numRuns: 300 },
+    );
+  });
 });

@@ -1,12 +1,11 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { resolveRules } from '../../src/rules/TextRules.js';
-import { Tally } from '../../src/tally/Tally.js';
 import { MAP_ENTRIES_MOST, TokenMap } from '../../src/tally/TokenMap.js';
 
 // A JavaScript Map holds at most 2^24 entries (V8: "Map maximum size exceeded"); 50 million distinct
-// tokens stopped a build there. TokenMap and Tally start another Map at `perMap` entries: tested here
-// with a few entries a Map instead of 16 million (the real case was measured by hand: README).
+// tokens stopped a build there. TokenMap starts another Map at `perMap` entries: tested here with a few
+// entries a Map instead of 16 million (the real case was measured by hand: README). A Tally numbers its
+// tokens in a SpanIndex (typed arrays, no Map): tests/tally/tallySpans.test.ts.
 
 describe('TokenMap', () => {
   it('keeps entries across Maps in the order added (hand-checked)', () => {
@@ -41,62 +40,6 @@ describe('TokenMap', () => {
         expect([...split]).toEqual([...one]);
         expect(split.size).toBe(one.size);
         for (const k of ['a', 'f', 'z', '__proto__']) expect(split.get(k)).toBe(one.get(k));
-      }),
-    );
-  });
-});
-
-describe('Tally over several Maps', () => {
-  const rules = resolveRules();
-  const doc = fc.record({
-    tokens: fc.array(fc.constantFrom('a', 'b', 'c', 'd', 'e', 'f', 'g', 'constructor', '__proto__', 'é', '😀'), { maxLength: 8 }),
-    label: fc.option(fc.constantFrom('x', 'y'), { nil: undefined }),
-  });
-
-  /** Everything a tally tells, in the order it tells it. */
-  function told(t: Tally, probes: readonly string[]) {
-    return {
-      entries: [...t.entries()],
-      counts: [...t.counts],
-      documentFrequency: [...t.documentFrequency],
-      countList: [...t.countList()],
-      toCounts: t.toCounts(),
-      types: t.types,
-      documents: t.documents,
-      tokens: t.tokens,
-      lengths: [...t.lengths],
-      labels: [...t.labels],
-      numbers: probes.map((p) => [t.numberOf(p), t.countOf(p), t.documentsOf(p)]),
-    };
-  }
-
-  it('counts, numbers and merges as a tally of one Map does (property)', () => {
-    fc.assert(
-      fc.property(fc.array(doc, { maxLength: 25 }), fc.array(doc, { maxLength: 10 }), fc.integer({ min: 1, max: 4 }), (docs, more, perMap) => {
-        const split = new Tally(rules, { entriesPerMap: perMap });
-        const one = new Tally(rules);
-        const splitNumbers: number[][] = [];
-        const oneNumbers: number[][] = [];
-        for (const d of docs) {
-          const a = new Int32Array(d.tokens.length);
-          const b = new Int32Array(d.tokens.length);
-          split.addNumbered(d.tokens, d.label, a);
-          one.addNumbered(d.tokens, d.label, b);
-          splitNumbers.push([...a]);
-          oneNumbers.push([...b]);
-        }
-        expect(splitNumbers).toEqual(oneNumbers);
-        const other = new Tally(rules);
-        for (const d of more) other.addTokens(d.tokens, d.label);
-        const splitMap = new Int32Array(other.types);
-        const oneMap = new Int32Array(other.types);
-        split.mergeCounts(other.toCounts(), splitMap);
-        one.mergeCounts(other.toCounts(), oneMap);
-        expect([...splitMap]).toEqual([...oneMap]);
-        split.addToken('zz', 2, 1);
-        one.addToken('zz', 2, 1);
-        const probes = ['a', 'g', 'zz', '__proto__', 'missing'];
-        expect(told(split, probes)).toEqual(told(one, probes));
       }),
     );
   });

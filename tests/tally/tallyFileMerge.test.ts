@@ -18,8 +18,9 @@ function part(docs: readonly Doc[], rules: TextRules = resolveRules()): TallyFil
   const tally = new Tally(rules);
   const snippets: string[] = [];
   for (const d of docs) {
-    const tokens = tally.add(d);
-    if (snippets.length < 3 && tokens.length > 0 && !snippets.includes(d.text)) snippets.push(d.text);
+    const before = tally.tokens;
+    tally.add(d);
+    if (snippets.length < 3 && tally.tokens > before && !snippets.includes(d.text)) snippets.push(d.text);
   }
   // Through the file text and back, as a part crossing machines would.
   return tallyFileParse(tallyFileText({ tally, snippets, fields: { text: 'text', label: 'topic' } }));
