@@ -1,6 +1,8 @@
 /** The phases the benchmark runs, each in a child process of its own. */
 export type PhaseName =
   | 'tokenize'
+  /** Tokenize and count (a Tally) the texts, loaded first: counting's own speed. */
+  | 'count'
   | 'plain'
   | 'build'
   /** `lexlock build` as users run it: the CLI, default thread count. */

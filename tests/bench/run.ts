@@ -22,10 +22,11 @@ interface Corpus {
   distinct?: number;
 }
 
-const PHASES: readonly PhaseName[] = ['plain', 'tokenize', 'build', 'build-cli', 'baseline-build', 'encode-noop', 'encode-npy', 'baseline-encode', 'build-encode-cli', 'baseline-one-script', 'audit'];
+const PHASES: readonly PhaseName[] = ['plain', 'tokenize', 'count', 'build', 'build-cli', 'baseline-build', 'encode-noop', 'encode-npy', 'baseline-encode', 'build-encode-cli', 'baseline-one-script', 'audit'];
 /** Which hand-written step each lexlock phase is compared with. */
 const BASELINE_OF: Partial<Record<PhaseName, PhaseName>> = {
   tokenize: 'plain',
+  count: 'plain',
   build: 'baseline-build',
   'build-cli': 'baseline-build',
   'encode-noop': 'baseline-encode',
@@ -35,6 +36,7 @@ const BASELINE_OF: Partial<Record<PhaseName, PhaseName>> = {
 const TITLE: Record<PhaseName, string> = {
   plain: '(a) plain tokenizer',
   tokenize: 'tokenize',
+  count: 'tokenize + count',
   build: 'build (1 thread)',
   'build-cli': 'build (CLI, all cores)',
   'baseline-build': '(b) baseline count+sort',
@@ -164,7 +166,7 @@ async function main(): Promise<void> {
     out.push('');
     out.push('vs (a): MB/s over the plain per-document tokenizer (NFKC, lower-case, wink-tokenizer, alien split; texts in memory).');
     out.push('vs (b): MB/s over the hand-written baseline (read files, same tokenizer, count in a Map and sort / look up ids and pad).');
-    out.push('tokenize and (a) exclude reading (texts loaded first); every other phase includes reading the corpus. Peak RSS is');
+    out.push('tokenize, tokenize + count and (a) exclude reading (texts loaded first); every other phase includes reading the corpus. Peak RSS is');
     out.push(`each phase's own child process (process.resourceUsage().maxRSS); an idle library child (Node, tsx loader, lexlock) peaks at`);
     out.push(`${fixed(idle.maxRssKiB / 1024, 0)} MiB. The CLI phases run dist/bin.js itself, as users do, with no loader; their seconds include loading it.`);
     out.push('');

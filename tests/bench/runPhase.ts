@@ -9,6 +9,7 @@ import {
   readCorpus,
   resolveRules,
   saveLexicon,
+  Tally,
   tallyCorpus,
   tokenize,
   type CorpusOptions,
@@ -48,6 +49,15 @@ async function measureTokenize(spec: PhaseSpec, tokens: (text: string) => string
   const start = process.hrtime.bigint();
   for (const text of docs) count += tokens(text).length;
   return { seconds: seconds(start), figures: { documents: docs.length, tokens: count } };
+}
+
+/** Tokenizing and counting texts loaded first, as a build counts them (Tally.add: spans looked up in place). */
+async function measureCount(spec: PhaseSpec): Promise<Measured> {
+  const docs = await texts(spec);
+  const start = process.hrtime.bigint();
+  const tally = new Tally(resolveRules());
+  for (const text of docs) tally.add(text);
+  return { seconds: seconds(start), figures: { documents: docs.length, tokens: tally.tokens, distinctTokens: tally.types } };
 }
 
 async function measureBuild(spec: PhaseSpec): Promise<Measured> {
@@ -224,6 +234,7 @@ const PHASES: Record<Exclude<PhaseSpec['phase'], 'build-cli' | 'build-encode-cli
     const rules = resolveRules();
     return measureTokenize(spec, (text) => tokenize(text, rules));
   },
+  count: measureCount,
   plain: (spec) => measureTokenize(spec, plainTokens),
   build: measureBuild,
   'baseline-build': measureBaselineBuild,
