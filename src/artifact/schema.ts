@@ -1,6 +1,7 @@
 import * as z from 'zod/mini';
 import { TOKEN_TYPES } from '../rules/TextRules.js';
 import { BAD_TEXT_POLICIES } from './badTextPolicy.js';
+import { MAX_SHAPE_LENGTH } from './maxShapeLength.js';
 
 /** The `format` member every lexicon file carries. */
 export const LEXICON_FORMAT = 'lexlock.lexicon';
@@ -26,12 +27,8 @@ export const rulesSchema = z.strictObject({
   tokenizer: z.string().check(z.minLength(1)),
 });
 
-/**
- * The longest shape a lexicon may store: 2^20 ids a row (4 MiB as Int32), past the longest input any
- * sequence model takes. Our own limit: every encode allocates a whole row, so a file asking for far
- * more (up to the 2^53 a JSON number holds) would make each encode fail or take gigabytes.
- */
-export const MAX_SHAPE_LENGTH = 2 ** 20;
+/** The longest shape a lexicon may store (maxShapeLength.ts). */
+export { MAX_SHAPE_LENGTH };
 
 /** Shape as stored in a lexicon. */
 export const shapeSchema = z.strictObject({

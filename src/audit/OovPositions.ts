@@ -1,4 +1,4 @@
-import { MAX_SHAPE_LENGTH } from '../artifact/schema.js';
+import { MAX_SHAPE_LENGTH } from '../artifact/maxShapeLength.js';
 import type { ShapeEnd } from '../lexicon/Shape.js';
 
 /**

@@ -1,4 +1,5 @@
 import { parse, parseString, type CsvParserStream } from 'fast-csv';
+import { splitCsvRecord } from './splitCsvRecord.js';
 
 /** fast-csv refused record `index` of a batch given to {@link CsvFieldParser.split}; `message` is fast-csv's. */
 export class CsvFieldError extends Error {
@@ -23,36 +24,47 @@ const NOT_SPACE = /\S/;
 /**
  * Splits CSV/TSV records (decoded, one record each, without its line end, as {@link CsvRecordScanner}
  * in csvRecords.ts gives them) into fields, one batch at a time: exactly one row comes back per record, in order, so
- * each row keeps the line and byte offset its record was found at. A record without a quote is its
- * fields between delimiters (such a record holds no CR or LF: they end records outside quotes), split
- * here; the records that hold a quote go to fast-csv, one stream for the whole file. The rows and the
- * errors are those fast-csv gives when it splits every record (tests/corpus/CsvFieldParser.test.ts
- * compares the two): fast-csv keeps spaces around unquoted fields (with the guard below for a first
- * field of white space only) and gives no fields for a record of white space only.
+ * each row keeps the line and byte offset its record was found at. Every record is split here: one
+ * without a quote is its fields between delimiters (such a record holds no CR or LF: they end records
+ * outside quotes), a quoted one goes through {@link splitCsvRecord}. Only a batch holding a record
+ * fast-csv would refuse or read oddly (never one the scanner gives) sends its quoted records to
+ * fast-csv, one stream for the whole file, made when first needed. The rows and the errors are those
+ * fast-csv gives when it splits every record (tests/corpus/CsvFieldParser.test.ts compares the two):
+ * fast-csv keeps spaces around unquoted fields (with the guard below for a first field of white space
+ * only) and gives no fields for a record of white space only.
  */
 export class CsvFieldParser {
   readonly #delimiter: ',' | '\t';
+  readonly #delimiterCode: number;
   /** Every record goes to fast-csv (the plain reading, kept to settle errors exactly and for tests). */
   readonly #everyRecord: boolean;
   readonly #blankFirstField: RegExp;
-  readonly #stream: CsvParserStream<Row, Row>;
+  #fastCsv: CsvParserStream<Row, Row> | null = null;
   #rows: Row[] = [];
   #error: Error | null = null;
   #settle: () => void = () => {};
 
   constructor(delimiter: ',' | '\t', options: { everyRecordToFastCsv?: boolean } = {}) {
     this.#delimiter = delimiter;
+    this.#delimiterCode = delimiter.charCodeAt(0);
     this.#everyRecord = options.everyRecordToFastCsv ?? false;
     this.#blankFirstField = delimiter === ',' ? /^[^\S\r\n]+(?=,)/ : /^[^\S\r\n\t]+(?=\t)/;
-    this.#stream = parse<Row, Row>(fastCsvOptions(delimiter));
-    this.#stream.on('data', (row: Row) => {
+  }
+
+  /** The fast-csv stream, made on first use. */
+  get #stream(): CsvParserStream<Row, Row> {
+    if (this.#fastCsv !== null) return this.#fastCsv;
+    const stream = parse<Row, Row>(fastCsvOptions(this.#delimiter));
+    stream.on('data', (row: Row) => {
       this.#rows.push(row);
       this.#settle();
     });
-    this.#stream.on('error', (e: Error) => {
+    stream.on('error', (e: Error) => {
       this.#error ??= e;
       this.#settle();
     });
+    this.#fastCsv = stream;
+    return stream;
   }
 
   /**
@@ -61,6 +73,34 @@ export class CsvFieldParser {
    */
   async split(records: readonly string[]): Promise<Row[]> {
     if (this.#everyRecord) return this.#splitWithFastCsv(records);
+    return this.splitHere(records) ?? this.#splitOddBatch(records);
+  }
+
+  /**
+   * The fields of each record, split here, or null when a record of the batch is one fast-csv reads
+   * oddly or refuses ({@link splitCsvRecord}); {@link split} then hands the batch's quoted records to
+   * fast-csv, so the rows, the message and the record named are fast-csv's.
+   */
+  splitHere(records: readonly string[]): Row[] | null {
+    if (this.#everyRecord) return null;
+    const rows: Row[] = new Array<Row>(records.length);
+    const delimiter = this.#delimiter;
+    const code = this.#delimiterCode;
+    for (let i = 0; i < records.length; i++) {
+      const record = records[i]!;
+      if (record.indexOf('"') === -1) {
+        rows[i] = unquotedFields(record, delimiter);
+        continue;
+      }
+      const values = splitCsvRecord(record, code);
+      if (values === null) return null;
+      rows[i] = values;
+    }
+    return rows;
+  }
+
+  /** A batch with a record {@link splitCsvRecord} leaves to fast-csv: its quoted records go to fast-csv. */
+  async #splitOddBatch(records: readonly string[]): Promise<Row[]> {
     const rows: Row[] = new Array<Row>(records.length);
     const quoted: string[] = [];
     const places: number[] = [];
@@ -72,11 +112,8 @@ export class CsvFieldParser {
         places.push(i);
         continue;
       }
-      const values = record.split(delimiter);
-      // fast-csv gives no fields for a record of white space only (JavaScript's \s, as it skips it).
-      rows[i] = values.length === 1 && !NOT_SPACE.test(record) ? [] : values;
+      rows[i] = unquotedFields(record, delimiter);
     }
-    if (quoted.length === 0) return rows;
     let split: Row[];
     try {
       split = await this.#splitWithFastCsv(quoted);
@@ -155,7 +192,7 @@ export class CsvFieldParser {
 
   /** Ends the stream. */
   close(): void {
-    this.#stream.destroy();
+    this.#fastCsv?.destroy();
   }
 
   /** The record fast-csv refuses on its own, found by splitting the batch's records one by one. */
@@ -173,6 +210,13 @@ export class CsvFieldParser {
     // No record fails alone: name the first of the batch and say so.
     return new CsvFieldError(0, `${message}, in this row or one of the next ${records.length - 1}`);
   }
+}
+
+/** The fields of a record without a quote (it holds no CR or LF either: they end records outside quotes). */
+function unquotedFields(record: string, delimiter: string): Row {
+  const values = record.split(delimiter);
+  // fast-csv gives no fields for a record of white space only (JavaScript's \s, as it skips it).
+  return values.length === 1 && !NOT_SPACE.test(record) ? [] : values;
 }
 
 function fastCsvOptions(delimiter: string) {

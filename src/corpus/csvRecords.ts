@@ -18,7 +18,7 @@ const LF_BYTE = Buffer.from([0x0a]);
 
 /**
  * Finds CSV/TSV record boundaries on bytes, line by line, so every record's starting line and byte
- * offset are known before fast-csv splits its fields. It follows RFC 4180 quoting as fast-csv reads
+ * offset are known before its fields are split (CsvFieldParser). It follows RFC 4180 quoting as fast-csv reads
  * it: a quote opens a field only at the field's start (fast-csv lets white space come first); inside
  * quotes `""` is a quote and line breaks belong to the field; after the closing quote only white
  * space may come before the delimiter or the record's end. A record ends at LF, CRLF or a lone CR

@@ -14,7 +14,7 @@ const START_ADVICE = 'start it with a header row naming the columns, then put on
 /**
  * A `.csv` (delimiter `,`) or `.tsv` (tab) corpus: a header row, then one document a row, text and
  * label (and the key, with a key column) taken from the named columns. {@link CsvRecordScanner} finds records, their places and bad
- * bytes on the bytes; fast-csv splits the fields. Row numbers count data records (the header is row
+ * bytes on the bytes; {@link CsvFieldParser} splits the fields as fast-csv does. Row numbers count data records (the header is row
  * 0; blank lines are not rows; rows skipped for bad bytes still count). Yields one batch of documents
  * per group of lines read (about 64 KiB); when something is wrong, the documents before it come first.
  * A line, or a record over several lines, of more than `context.maxRecordBytes` is `RECORD_TOO_LARGE`

@@ -1,5 +1,5 @@
 import { LexlockError } from '../LexlockError.js';
-import { MAX_SHAPE_LENGTH } from '../artifact/schema.js';
+import { MAX_SHAPE_LENGTH } from '../artifact/maxShapeLength.js';
 
 /**
  * A fixed sequence shape (encoding contract, rule 5): every row has `length` ids; `pad` says where

@@ -4,9 +4,11 @@ import { isLexlockError } from '../../src/LexlockError.js';
 import { CsvFieldParser } from '../../src/corpus/CsvFieldParser.js';
 import { CsvRecordScanner, type CsvRecord } from '../../src/corpus/csvRecords.js';
 import { LineSplitter } from '../../src/corpus/lines.js';
+import { isJsSpace, splitCsvRecord } from '../../src/corpus/splitCsvRecord.js';
 
-// CsvFieldParser splits records without a quote itself and gives fast-csv only the quoted ones. The
-// reference is fast-csv (a general-purpose CSV library) splitting every record, the reading before.
+// CsvFieldParser splits every record itself (splitCsvRecord for quoted ones) and gives fast-csv only a
+// batch holding a record it would read oddly or refuse. The reference is fast-csv (a general-purpose CSV
+// library) splitting every record, the reading before.
 
 type Delimiter = ',' | '\t';
 type Outcome = { rows: string[][][] } | { error: { name: string; index: unknown; message: string } };
@@ -102,6 +104,90 @@ describe('CsvFieldParser splits unquoted records as fast-csv does', () => {
         if (found === null) return;
         const at = found.length === 0 ? 0 : cut % found.length;
         await expectSameAsFastCsv([found.slice(0, at), found.slice(at)], delimiter);
+      }),
+      { numRuns: 600 },
+    );
+  });
+});
+
+describe('CsvFieldParser splits quoted records as fast-csv does', () => {
+  // RFC 4180 §2 (examples from memory) with the quoting of rules 5-7 in every position: first, middle
+  // and last field, empty quoted fields, doubled quotes at both ends, line breaks and delimiters inside.
+  it.each([
+    ['"aaa","bbb","ccc"', ['aaa', 'bbb', 'ccc']],
+    ['"aaa","b\r\nbb","ccc"', ['aaa', 'b\r\nbb', 'ccc']],
+    ['"aaa","b""bb","ccc"', ['aaa', 'b"bb', 'ccc']],
+    ['"","",""', ['', '', '']],
+    ['"""",""""""', ['"', '""']],
+    ['a,"b,c",d', ['a', 'b,c', 'd']],
+    ['a,"b\nc\rd"', ['a', 'b\nc\rd']],
+    ['"a",', ['a', '']],
+    [',"a"', ['', 'a']],
+    ['a,,"b",,', ['a', '', 'b', '', '']],
+    // fast-csv's own readings, beside RFC 4180: white space around a quoted field is dropped, a quote
+    // inside an unquoted field is text, and a first field of white space only keeps its spaces.
+    ['  "a"  ,\u00a0"b"\u3000', ['a', 'b']],
+    ['a"b,c""d', ['a"b', 'c""d']],
+    ['  ,"b"', ['  ', 'b']],
+    ['\ufeff"a",b', ['a', 'b']],
+    ['', []],
+    [' \u3000\t', []],
+  ])('RFC 4180 §2 / fast-csv: %j', async (record, fields) => {
+    expect(splitCsvRecord(record, 0x2c)).toEqual(fields);
+    expect(await expectSameAsFastCsv([[record]], ',')).toEqual({ rows: [[fields]] });
+  });
+
+  it.each([
+    ['"e"f,g', 'text after the closing quote'],
+    ['"a" \r', 'a CR after the closing quote'],
+    ['a\nb,"c"', 'an LF outside quotes'],
+    ['"a""', 'a quote never closed'],
+    ['x,"a', 'a quote never closed'],
+  ])('leaves %j to fast-csv (%s)', (record) => {
+    expect(splitCsvRecord(record, 0x2c)).toBeNull();
+  });
+
+  it("matches JavaScript's /\\s/ over every UTF-16 code unit (ECMA-262 WhiteSpace and LineTerminator)", () => {
+    const mismatches: number[] = [];
+    for (let c = 0; c <= 0xffff; c++) if (isJsSpace(c) !== /\s/.test(String.fromCharCode(c))) mismatches.push(c);
+    expect(mismatches).toEqual([]);
+  });
+
+  // Records made field by field, every field quoted or not, with white space around quoted fields,
+  // doubled quotes, delimiters and line breaks inside quotes, and now and then a record fast-csv
+  // refuses (text after a closing quote) or reads oddly (a CR or LF outside quotes); batches of them.
+  const inner = fc.constantFrom('a', 'é', '🎉', ' ', '""', ',', '\t', '\n', '\r\n', '\r', '\u00a0', '\ufeff', '\u2028', "'");
+  const outer = fc.constantFrom('a', 'bb', 'é', ' ', '\t', '\u00a0', '\u3000', '\ufeff', '\u000b', '"');
+  const space = fc.constantFrom('', '', ' ', '  ', '\t', '\u00a0', '\ufeff', '\u3000');
+  const quotedField = fc
+    .tuple(space, fc.array(inner, { maxLength: 8 }), space, fc.constantFrom('', '', '', '', '', '', 'x', '\r', '\n'))
+    .map(([before, body, after, odd]) => `${before}"${body.join('')}"${after}${odd}`);
+  // A quote in an unquoted field comes after an `x`: first in a field (or after a tab, TSV's delimiter)
+  // it would open a quote never closed, which the scanner refuses before any splitting, and which
+  // fast-csv reads on into the next records.
+  const plainField = fc.array(outer, { maxLength: 6 }).map((a) => a.join('').replaceAll('"', 'x"'));
+  const record = (delimiter: Delimiter) => fc.array(fc.oneof(quotedField, plainField), { minLength: 1, maxLength: 6 }).map((f) => f.join(delimiter));
+  it.each([',', '\t'] as const)('splits fuzzed quoted, unquoted and mixed records as fast-csv does (delimiter %j)', async (delimiter) => {
+    await fc.assert(
+      fc.asyncProperty(fc.array(fc.array(record(delimiter), { maxLength: 6 }), { minLength: 1, maxLength: 3 }), async (batches) => {
+        await expectSameAsFastCsv(batches, delimiter);
+      }),
+      { numRuns: 500 },
+    );
+  });
+
+  it.each([',', '\t'] as const)('splits every record the scanner finds without fast-csv (delimiter %j)', (delimiter) => {
+    const mixed = fc.constantFrom('a', 'é', ' ', '"', '"', ',', ',', '\t', '\t', '\n', '\n', '\r\n', '\r', '\u00a0', '\ufeff', '🎉');
+    fc.assert(
+      fc.property(fc.array(mixed, { maxLength: 60 }).map((a) => a.join('')), (text) => {
+        const found = records(text, delimiter);
+        if (found === null) return;
+        const parser = new CsvFieldParser(delimiter);
+        try {
+          expect(parser.splitHere(found)).not.toBeNull();
+        } finally {
+          parser.close();
+        }
       }),
       { numRuns: 600 },
     );
