@@ -63,7 +63,7 @@ async function measureCorpus(corpus: Corpus, scratch: string): Promise<Map<Phase
       corpus: corpus.path,
       lexicon: join(scratch, `${corpus.name}.lexicon.json`),
       out: join(scratch, `${corpus.name}-encoded`),
-      cap: 20_000,
+      cap: 24_000,
       length: corpus.length,
       ...(corpus.label === undefined ? {} : { label: corpus.label }),
     };
@@ -138,7 +138,7 @@ async function main(): Promise<void> {
       if (corpus.name !== 'large-vocab') {
         say(`  ${corpus.name}: thread scaling (two one-thread builds at once; build, encode, audit on 1 and 2 threads)`);
         const label = corpus.label === undefined ? {} : { label: corpus.label };
-        scaling.push([corpus.name, await threadScaling({ corpus: corpus.path, lexicon: join(scratch, `${corpus.name}.lexicon.json`), out: scratch, cap: 20_000, length: corpus.length, ...label }, join(scratch, `${corpus.name}.scaling.json`))]);
+        scaling.push([corpus.name, await threadScaling({ corpus: corpus.path, lexicon: join(scratch, `${corpus.name}.lexicon.json`), out: scratch, cap: 24_000, length: corpus.length, ...label }, join(scratch, `${corpus.name}.scaling.json`))]);
       }
       const built = results.get('build');
       if (built !== undefined) corpus.distinct = built.figures['distinctTokens'] ?? 0;

@@ -36,7 +36,7 @@ describe('placeLabels', () => {
       { x: 580, text: '90 %' },
       { x: 616, text: '95 %' },
       { x: 648, text: '99 %' },
-      { x: 608, text: 'chosen cap 20,000: 94.1 % covered' },
+      { x: 608, text: 'chosen cap 24,000: 95.3 % covered' },
     ];
     const placed = placeLabels(requests, 2, 678);
     for (const label of placed) {

@@ -88,7 +88,7 @@ describe('renderReport', () => {
     expect(page).toContain('token occurrences covered (%)');
     expect(page).toContain('tokens per document (bins of 50)');
     expect(page).toContain('Bar width: 50 tokens.');
-    expect(page).toMatch(/chosen cap 20,000: 94\.\d\u00a0% covered/);
+    expect(page).toMatch(/chosen cap 24,000: 9\d\.\d\u00a0% covered/);
     expect(page).toMatch(/chosen length 256: 9\.\d\d\u00a0% truncated/);
   });
 
@@ -170,7 +170,7 @@ describe('renderReport', () => {
 
   it('shows drift then and now, and says what "unseen" was checked against', () => {
     expect(page).toContain('<h2>Drift since the lexicon was built</h2>');
-    expect(page).toContain('<th scope="row">OOV rate</th><td class="num">3.12\u00a0%</td><td class="num">5.86\u00a0%</td><td class="num">+2.74 points</td>');
+    expect(page).toContain('<th scope="row">OOV rate</th><td class="num">3.12\u00a0%</td><td class="num">4.62\u00a0%</td><td class="num">+1.50 points</td>');
     expect(page).toContain('<th scope="row">p99</th><td class="num">410</td><td class="num">533</td><td class="num">+123 tokens</td>');
     expect(page).toContain('<th scope="row"><code>delays</code></th><td class="num">22.0\u00a0%</td><td class="num">31.0\u00a0%</td><td class="num">+9.00 points</td>');
     expect(page).toContain('never had the token at all');

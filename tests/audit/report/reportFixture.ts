@@ -9,7 +9,7 @@ import { summarizeLengths } from '../../../src/tally/nearestRank.js';
 export const SCRIPT_TOKEN = '<script>alert(1)</script>';
 
 const TYPES = 48_000;
-const CAP = 20_000;
+const CAP = 24_000;
 const RESERVED = 2;
 const LENGTH = 256;
 
@@ -38,7 +38,7 @@ function lengthCounts(): Map<number, number> {
   return out;
 }
 
-/** A realistic report of the invented ferry-support corpus against a 20,000-token lexicon, with drift. */
+/** A realistic report of the invented ferry-support corpus against a 24,000-token lexicon, with drift. */
 export function ferryReport(): CoverageReport {
   const lengths = lengthCounts();
   let documents = 0;
@@ -176,7 +176,7 @@ export function ferryContext(): ReportContext {
   return {
     corpus: 'harbourline-support-2031-q2.jsonl',
     lexiconFile: 'lexicons/harbourline-support.lexicon.json',
-    settings: { text: 'body', label: 'desk', cap: '20000', length: 'length 256; zeros at the start; long documents lose their end' },
+    settings: { text: 'body', label: 'desk', cap: '24000', length: 'length 256; zeros at the start; long documents lose their end' },
     generatedAt: '2031-07-01T09:30:00Z',
     lexlockVersion: '0.1.0',
   };
