@@ -175,7 +175,7 @@ async function main(): Promise<void> {
     out.push('read and tokenized once, every document\'s tokens kept in memory, counted, sorted, then encoded from the kept tokens:');
     for (const line of endToEnd) out.push(`  ${line}`);
     out.push('Thread scaling, 1 -> 2 threads (library steps): ceiling = two one-thread builds started at once, their combined speed over');
-    out.push('one alone; efficiency = (2-thread speed-up) / ceiling:');
+    out.push('one alone; efficiency = (2-thread speed-up) / ceiling; each time the median of 3 rounds taken in turn, each run a new process:');
     const x = (n: number | null) => (n === null ? 'n/a' : `${fixed(n, 2)}x`);
     for (const [name, t] of scaling) {
       const cells = SCALED_PHASES.map((phase) => {
