@@ -5,6 +5,7 @@ import { SeenTokens } from '../lexicon/SeenTokens.js';
 import { SpanIndex } from '../rules/SpanIndex.js';
 import type { TextRules } from '../rules/TextRules.js';
 import { TokenSpans } from '../rules/TokenSpans.js';
+import { CandidateTable } from './CandidateTable.js';
 import { DistinctEstimate } from './DistinctEstimate.js';
 import { formatBytes, limitFor, memoryPlan, MOST_LIMIT_MIB, resultBytesFor, type MemoryNeeds, type MemoryPlan } from './memoryPlan.js';
 import { scanPieces } from './scanPieces.js';
@@ -99,9 +100,11 @@ export async function boundedTally(
   // Pass 1.
   const first = await pass(open(), rules, plan, (src, from, to, folded) => {
     spanHashes(src, from, to, folded, hashes);
-    summary.offer(hashes[0] as number, src, from, to, folded);
-    seen.addHashes(hashes[1] as number, hashes[2] as number);
-    distinct.add(hashes[1] as number, hashes[2] as number);
+    // A token monitored already was offered before, and both record a token once: nothing to add.
+    if (!summary.offer(hashes[0] as number, src, from, to, folded)) {
+      seen.addHashes(hashes[1] as number, hashes[2] as number);
+      distinct.add(hashes[1] as number, hashes[2] as number);
+    }
     lengths.add(to - from);
     if (reserved.length > 0) {
       const r = reservedIndex.indexOfSpan(src, from, to, folded);
@@ -142,14 +145,35 @@ export async function boundedTally(
     for (const c of monitored) exact[c] = summary.countAt(c);
   } else {
     passes = 2;
-    for (const c of monitored) exact[c] = summary.countAt(c) >= bar ? 0 : -1;
+    let candidates = 0;
+    for (const c of monitored) {
+      exact[c] = summary.countAt(c) >= bar ? 0 : -1;
+      if ((exact[c] as number) >= 0) candidates += 1;
+    }
+    // Pass 2 looks tokens up among the candidates only, in a table of their own (see CandidateTable)
+    // when it fits in what the ranking takes after this pass and not before (rankable, rankedCounts:
+    // 12 bytes a counter); else in the summary's table.
+    const table = CandidateTable.bytesFor(candidates) <= summary.capacity * 12 ? reserve(() => candidateTable(summary, monitored, exact, candidates), plan) : null;
     const before = summary.total;
-    const second = await pass(open(), rules, plan, (src, from, to, folded) => {
-      spanHashes(src, from, to, folded, hashes);
-      summary.total += 1;
-      const c = summary.find(hashes[0] as number, src, from, to, folded);
-      if (c >= 0 && (exact[c] as number) >= 0) exact[c] = (exact[c] as number) + 1;
-    }, () => {});
+    const second = await pass(
+      open(),
+      rules,
+      plan,
+      table === null
+        ? (src, from, to, folded) => {
+            spanHashes(src, from, to, folded, hashes);
+            summary.total += 1;
+            const c = summary.find(hashes[0] as number, src, from, to, folded);
+            if (c >= 0 && (exact[c] as number) >= 0) exact[c] = (exact[c] as number) + 1;
+          }
+        : (src, from, to, folded) => {
+            spanHashes(src, from, to, folded, hashes);
+            summary.total += 1;
+            const c = table.find(hashes[0] as number, src, from, to, folded);
+            if (c >= 0) exact[c] = (exact[c] as number) + 1;
+          },
+      () => {},
+    );
     const again = summary.total - before;
     summary.total = before;
     if (second.documents !== first.documents || again !== before) {
@@ -268,6 +292,14 @@ function reserve<T>(make: () => T, plan: MemoryPlan): T {
       { field: '--memory-limit' },
     );
   }
+}
+
+/** The `candidates` counters of `monitored` that pass 2 counts (`exact` at 0), in a table of their own. */
+function candidateTable(summary: SpaceSaving, monitored: Int32Array, exact: Float64Array, candidates: number): CandidateTable {
+  const chosen = new Int32Array(candidates);
+  let k = 0;
+  for (const c of monitored) if ((exact[c] as number) >= 0) chosen[k++] = c;
+  return new CandidateTable(summary, chosen);
 }
 
 /** The counter of a token given as a string, or -1. */
