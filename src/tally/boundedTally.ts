@@ -10,7 +10,7 @@ import { DistinctEstimate } from './DistinctEstimate.js';
 import { formatBytes, limitFor, memoryPlan, MOST_LIMIT_MIB, resultBytesFor, type MemoryNeeds, type MemoryPlan } from './memoryPlan.js';
 import { scanPieces } from './scanPieces.js';
 import { SpaceSaving } from './SpaceSaving.js';
-import { spanHashes } from './spanHashes.js';
+import { spanHash, spanHashes } from './spanHashes.js';
 import { Tally, type LabelledText } from './Tally.js';
 import { TokenLengths } from './TokenLengths.js';
 
@@ -167,9 +167,8 @@ export async function boundedTally(
             if (c >= 0 && (exact[c] as number) >= 0) exact[c] = (exact[c] as number) + 1;
           }
         : (src, from, to, folded) => {
-            spanHashes(src, from, to, folded, hashes);
             summary.total += 1;
-            const c = table.find(hashes[0] as number, src, from, to, folded);
+            const c = table.find(spanHash(src, from, to, folded), src, from, to, folded);
             if (c >= 0) exact[c] = (exact[c] as number) + 1;
           },
       () => {},
