@@ -14,7 +14,8 @@ function slotsFor(n: number): number {
  * own table is small enough to stay in the processor's cache, and a token that is no candidate
  * mostly meets an empty slot at once, where the summary's table, sized for every counter, costs a
  * cache miss or more a token. Each slot holds the counter + 1 (0: empty) and its hash, so a probe
- * reads the summary's arena only when the hashes match.
+ * reads the summary's arena only when the hashes match. It lives in memory its caller lends it
+ * (`storage`, {@link bytesFor} bytes at least), so it costs nothing the caller has not counted.
  */
 export class CandidateTable {
   readonly #summary: SpaceSaving;
@@ -22,26 +23,31 @@ export class CandidateTable {
   readonly #hashes: Int32Array;
   readonly #mask: number;
 
-  /** The bytes a table of `n` candidates takes: its two typed arrays. */
+  /** The bytes a table of `n` candidates takes: its two arrays of slots. */
   static bytesFor(n: number): number {
     return slotsFor(n) * 8;
   }
 
-  /** @param counters the candidates: monitored counters of `summary`, each once */
-  constructor(summary: SpaceSaving, counters: ArrayLike<number>) {
+  /**
+   * An empty table for up to `n` candidates, in the first {@link bytesFor}(n) bytes of `storage`
+   * (cleared here; the table owns them while it is used).
+   */
+  constructor(summary: SpaceSaving, n: number, storage: ArrayBuffer = new ArrayBuffer(CandidateTable.bytesFor(n))) {
+    if (storage.byteLength < CandidateTable.bytesFor(n)) throw new RangeError(`a table of ${n} candidates needs ${CandidateTable.bytesFor(n)} bytes, not ${storage.byteLength}`);
     this.#summary = summary;
-    const slots = slotsFor(counters.length);
-    this.#slots = new Int32Array(slots);
-    this.#hashes = new Int32Array(slots);
+    const slots = slotsFor(n);
+    this.#slots = new Int32Array(storage, 0, slots).fill(0);
+    this.#hashes = new Int32Array(storage, slots * 4, slots);
     this.#mask = slots - 1;
-    for (let i = 0; i < counters.length; i++) {
-      const c = counters[i] as number;
-      const hash = summary.hashAt(c);
-      let s = hash & this.#mask;
-      while (this.#slots[s] !== 0) s = (s + 1) & this.#mask;
-      this.#slots[s] = c + 1;
-      this.#hashes[s] = hash;
-    }
+  }
+
+  /** Adds counter `c` of the summary, monitored and not added before (at most `n` in all). */
+  add(c: number): void {
+    const hash = this.#summary.hashAt(c);
+    let s = hash & this.#mask;
+    while (this.#slots[s] !== 0) s = (s + 1) & this.#mask;
+    this.#slots[s] = c + 1;
+    this.#hashes[s] = hash;
   }
 
   /** The candidate counter monitoring `text[from, to)` (A-Z read as a-z when `folded`), whose table hash is `hash`, or -1. */

@@ -150,16 +150,21 @@ export async function boundedTally(
       exact[c] = summary.countAt(c) >= bar ? 0 : -1;
       if ((exact[c] as number) >= 0) candidates += 1;
     }
-    // Pass 2 looks tokens up among the candidates only, in a table of their own (see CandidateTable)
-    // when it fits in what the ranking takes after this pass and not before (rankable, rankedCounts:
-    // 12 bytes a counter); else in the summary's table.
-    const table = CandidateTable.bytesFor(candidates) <= summary.capacity * 12 ? reserve(() => candidateTable(summary, monitored, exact, candidates), plan) : null;
+    // Pass 2 looks tokens up among the candidates only, in a table of their own (see CandidateTable),
+    // made in `scratch`, whose values are not needed again (it is refilled after this pass), when it
+    // fits there: usually, candidates being a few per cent of the counters. Else in the summary's table.
+    let table: CandidateTable | null = null;
+    if (CandidateTable.bytesFor(candidates) <= scratch.byteLength) {
+      table = new CandidateTable(summary, candidates, scratch.buffer);
+      for (const c of monitored) if ((exact[c] as number) >= 0) table.add(c);
+    }
+    const lookup = table;
     const before = summary.total;
     const second = await pass(
       open(),
       rules,
       plan,
-      table === null
+      lookup === null
         ? (src, from, to, folded) => {
             spanHashes(src, from, to, folded, hashes);
             summary.total += 1;
@@ -168,7 +173,7 @@ export async function boundedTally(
           }
         : (src, from, to, folded) => {
             summary.total += 1;
-            const c = table.find(spanHash(src, from, to, folded), src, from, to, folded);
+            const c = lookup.find(spanHash(src, from, to, folded), src, from, to, folded);
             if (c >= 0) exact[c] = (exact[c] as number) + 1;
           },
       () => {},
@@ -291,14 +296,6 @@ function reserve<T>(make: () => T, plan: MemoryPlan): T {
       { field: '--memory-limit' },
     );
   }
-}
-
-/** The `candidates` counters of `monitored` that pass 2 counts (`exact` at 0), in a table of their own. */
-function candidateTable(summary: SpaceSaving, monitored: Int32Array, exact: Float64Array, candidates: number): CandidateTable {
-  const chosen = new Int32Array(candidates);
-  let k = 0;
-  for (const c of monitored) if ((exact[c] as number) >= 0) chosen[k++] = c;
-  return new CandidateTable(summary, chosen);
 }
 
 /** The counter of a token given as a string, or -1. */

@@ -17,7 +17,10 @@ describe('CandidateTable', () => {
         const s = new SpaceSaving(k, 10_000);
         for (const t of stream) s.offerToken(t);
         const chosen = [...s.monitored()].filter((_, i) => i % every === 0);
-        const table = new CandidateTable(s, chosen);
+        // In lent storage, full of leftovers: the table clears what it takes.
+        const storage = new Float64Array(CandidateTable.bytesFor(chosen.length) / 8 + 3).fill(-7.5);
+        const table = new CandidateTable(s, chosen.length, storage.buffer);
+        for (const c of chosen) table.add(c);
         for (let n = 0; n <= 60; n++) {
           const t = `w${n}`;
           const c = s.find(hashOf(t, 0, t.length, false), t, 0, t.length, false);
@@ -31,7 +34,8 @@ describe('CandidateTable', () => {
   it('finds a token by a span of any text, read lower-cased when folded', () => {
     const s = new SpaceSaving(4, 100);
     for (const t of ['ferry', 'pier', 'ferry']) s.offerToken(t);
-    const table = new CandidateTable(s, s.monitored());
+    const table = new CandidateTable(s, s.size);
+    for (const c of s.monitored()) table.add(c);
     const text = 'The FERRY left the Pier';
     const ferry = s.find(hashOf('ferry', 0, 5, false), 'ferry', 0, 5, false);
     expect(ferry).toBeGreaterThanOrEqual(0);
@@ -43,5 +47,9 @@ describe('CandidateTable', () => {
 
   it('takes two 4-byte slots a candidate at least, in a power of two', () => {
     expect([CandidateTable.bytesFor(0), CandidateTable.bytesFor(8), CandidateTable.bytesFor(9), CandidateTable.bytesFor(50_239)]).toEqual([128, 128, 256, 131_072 * 8]);
+  });
+
+  it('refuses storage smaller than it needs', () => {
+    expect(() => new CandidateTable(new SpaceSaving(4, 100), 9, new ArrayBuffer(255))).toThrow('a table of 9 candidates needs 256 bytes, not 255');
   });
 });
