@@ -134,18 +134,23 @@ export class SpaceSaving {
     this.offer(this.#hashes[0] as number, token, 0, token.length, false);
   }
 
-  /** Counts one occurrence of the token `text[from, to)` (A-Z read as a-z when `folded`), whose table hash is `hash` (see spanHashes). */
-  offer(hash: number, text: string, from: number, to: number, folded: boolean): void {
+  /**
+   * Counts one occurrence of the token `text[from, to)` (A-Z read as a-z when `folded`), whose table
+   * hash is `hash` (see spanHashes). True when the token was monitored already: then it had been
+   * offered before, so a caller that records every distinct token (a Bloom filter, a distinct-count
+   * estimate) has recorded this one and may skip it.
+   */
+  offer(hash: number, text: string, from: number, to: number, folded: boolean): boolean {
     this.total += 1;
     const known = this.find(hash, text, from, to, folded);
     if (known !== NONE) {
       this.#raise(known);
-      return;
+      return true;
     }
     const length = to - from;
     if (!this.#makeRoom(length + HEADER)) {
       this.#unfollowed += 1;
-      return;
+      return false;
     }
     let c = this.#takeCounter();
     if (c === NONE) {
@@ -156,6 +161,7 @@ export class SpaceSaving {
     }
     this.#store(c, hash, text, from, to, folded);
     this.#raise(c);
+    return false;
   }
 
   /** The counter monitoring `text[from, to)` (A-Z read as a-z when `folded`), whose table hash is `hash`, or -1. */
@@ -168,6 +174,16 @@ export class SpaceSaving {
       if (c < 0) return NONE;
       if (this.#hash[c] === hash && this.#length[c] === length && this.#sameAs(c, text, from, folded)) return c;
     }
+  }
+
+  /** Whether counter `c` monitors `text[from, to)` (A-Z read as a-z when `folded`). */
+  holds(c: number, text: string, from: number, to: number, folded: boolean): boolean {
+    return this.#start[c] !== NONE && this.#length[c] === to - from && this.#sameAs(c, text, from, folded);
+  }
+
+  /** The table hash of the token counter `c` monitors (see spanHashes). */
+  hashAt(c: number): number {
+    return this.#hash[c] as number;
   }
 
   /** Every monitored counter, in no particular order. */

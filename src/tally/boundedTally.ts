@@ -5,11 +5,12 @@ import { SeenTokens } from '../lexicon/SeenTokens.js';
 import { SpanIndex } from '../rules/SpanIndex.js';
 import type { TextRules } from '../rules/TextRules.js';
 import { TokenSpans } from '../rules/TokenSpans.js';
+import { CandidateTable } from './CandidateTable.js';
 import { DistinctEstimate } from './DistinctEstimate.js';
 import { formatBytes, limitFor, memoryPlan, MOST_LIMIT_MIB, resultBytesFor, type MemoryNeeds, type MemoryPlan } from './memoryPlan.js';
 import { scanPieces } from './scanPieces.js';
 import { SpaceSaving } from './SpaceSaving.js';
-import { spanHashes } from './spanHashes.js';
+import { spanHash, spanHashes } from './spanHashes.js';
 import { Tally, type LabelledText } from './Tally.js';
 import { TokenLengths } from './TokenLengths.js';
 
@@ -99,9 +100,11 @@ export async function boundedTally(
   // Pass 1.
   const first = await pass(open(), rules, plan, (src, from, to, folded) => {
     spanHashes(src, from, to, folded, hashes);
-    summary.offer(hashes[0] as number, src, from, to, folded);
-    seen.addHashes(hashes[1] as number, hashes[2] as number);
-    distinct.add(hashes[1] as number, hashes[2] as number);
+    // A token monitored already was offered before, and both record a token once: nothing to add.
+    if (!summary.offer(hashes[0] as number, src, from, to, folded)) {
+      seen.addHashes(hashes[1] as number, hashes[2] as number);
+      distinct.add(hashes[1] as number, hashes[2] as number);
+    }
     lengths.add(to - from);
     if (reserved.length > 0) {
       const r = reservedIndex.indexOfSpan(src, from, to, folded);
@@ -142,14 +145,39 @@ export async function boundedTally(
     for (const c of monitored) exact[c] = summary.countAt(c);
   } else {
     passes = 2;
-    for (const c of monitored) exact[c] = summary.countAt(c) >= bar ? 0 : -1;
+    let candidates = 0;
+    for (const c of monitored) {
+      exact[c] = summary.countAt(c) >= bar ? 0 : -1;
+      if ((exact[c] as number) >= 0) candidates += 1;
+    }
+    // Pass 2 looks tokens up among the candidates only, in a table of their own (see CandidateTable),
+    // made in `scratch`, whose values are not needed again (it is refilled after this pass), when it
+    // fits there: usually, candidates being a few per cent of the counters. Else in the summary's table.
+    let table: CandidateTable | null = null;
+    if (CandidateTable.bytesFor(candidates) <= scratch.byteLength) {
+      table = new CandidateTable(summary, candidates, scratch.buffer);
+      for (const c of monitored) if ((exact[c] as number) >= 0) table.add(c);
+    }
+    const lookup = table;
     const before = summary.total;
-    const second = await pass(open(), rules, plan, (src, from, to, folded) => {
-      spanHashes(src, from, to, folded, hashes);
-      summary.total += 1;
-      const c = summary.find(hashes[0] as number, src, from, to, folded);
-      if (c >= 0 && (exact[c] as number) >= 0) exact[c] = (exact[c] as number) + 1;
-    }, () => {});
+    const second = await pass(
+      open(),
+      rules,
+      plan,
+      lookup === null
+        ? (src, from, to, folded) => {
+            spanHashes(src, from, to, folded, hashes);
+            summary.total += 1;
+            const c = summary.find(hashes[0] as number, src, from, to, folded);
+            if (c >= 0 && (exact[c] as number) >= 0) exact[c] = (exact[c] as number) + 1;
+          }
+        : (src, from, to, folded) => {
+            summary.total += 1;
+            const c = lookup.find(spanHash(src, from, to, folded), src, from, to, folded);
+            if (c >= 0) exact[c] = (exact[c] as number) + 1;
+          },
+      () => {},
+    );
     const again = summary.total - before;
     summary.total = before;
     if (second.documents !== first.documents || again !== before) {

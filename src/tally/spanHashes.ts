@@ -36,3 +36,21 @@ export function spanHashes(text: string, from: number, to: number, folded: boole
   out[1] = h1;
   out[2] = h2;
 }
+
+/**
+ * The table hash alone (`out[0]` of {@link spanHashes}), for a pass that only looks tokens up.
+ * @example spanHash('The ferry', 0, 3, true) // spanHashes' out[0] for 'the'
+ */
+export function spanHash(text: string, from: number, to: number, folded: boolean): number {
+  let h0 = SEED ^ (to - from);
+  for (let i = from; i < to; i++) {
+    let c = text.charCodeAt(i);
+    if (folded && c >= A && c <= Z) c += 32;
+    h0 = Math.imul(h0 ^ c, FNV_PRIME);
+  }
+  h0 ^= h0 >>> 16;
+  h0 = Math.imul(h0, 0x85eb_ca6b);
+  h0 ^= h0 >>> 13;
+  h0 = Math.imul(h0, 0xc2b2_ae35);
+  return h0 ^ (h0 >>> 16);
+}

@@ -7,6 +7,10 @@ export type PhaseName =
   | 'build'
   /** `lexlock build` as users run it: the CLI, default thread count. */
   | 'build-cli'
+  /** `lexlock build --threads 1`: the CLI unbounded on one thread, as the bounded count runs (`--large` only). */
+  | 'build-cli-one-thread'
+  /** `lexlock build --memory-limit <memoryLimitMiB>`: the CLI in bounded memory (`--large` only). */
+  | 'build-cli-bounded'
   /** `lexlock build --encode`: fit and encode from one reading, through the CLI. */
   | 'build-encode-cli'
   | 'baseline-build'
@@ -33,6 +37,8 @@ export interface PhaseSpec {
   out: string;
   cap: number;
   length: number;
+  /** The `--memory-limit` of `build-cli-bounded`, MiB. */
+  memoryLimitMiB?: number;
   /** Worker threads for the build, encode-noop and audit phases (default 1; audit runs `auditOnThreads` when given). */
   threads?: number;
 }

@@ -1,14 +1,15 @@
 // `npm run bench`: generates seeded corpora in a temporary folder, runs every phase in a child process
 // against the built lexlock (dist/, as users run it), prints one table and removes the corpora.
-import { mkdtemp, rm } from 'node:fs/promises';
+import { mkdtemp, readFile, rm } from 'node:fs/promises';
 import { cpus, tmpdir, totalmem } from 'node:os';
 import { join } from 'node:path';
 import { benchOptions } from './benchOptions.js';
+import { BENCH_MEMORY_LIMIT_MIB, boundedLines, checkSameFingerprint, fingerprintOf, LARGE_CAP, type MeasuredBuild } from './boundedBuild.js';
 import { formatTable } from './formatTable.js';
 import { writeMailCorpus, type WrittenCorpus } from './mailCorpus.js';
 import type { PhaseName, PhaseResult, PhaseSpec } from './PhaseSpec.js';
 import { writeReviewCsv } from './reviewCsv.js';
-import { spawnPhase } from './spawnPhase.js';
+import { cliLexiconOf, spawnPhase } from './spawnPhase.js';
 import { SCALED_PHASES, threadScaling, type ThreadScaling } from './threadScaling.js';
 import { WINDOW_LENGTH, WINDOW_TEXT_BYTES } from './windowSizes.js';
 import { writeZipfText } from './zipfText.js';
@@ -19,6 +20,8 @@ interface Corpus {
   written: WrittenCorpus;
   label?: string;
   length: number;
+  /** The builds' `--cap`. */
+  cap: number;
   distinct?: number;
 }
 
@@ -39,6 +42,8 @@ const TITLE: Record<PhaseName, string> = {
   count: 'tokenize + count',
   build: 'build (1 thread)',
   'build-cli': 'build (CLI, all cores)',
+  'build-cli-one-thread': 'build (CLI, --threads 1)',
+  'build-cli-bounded': 'build (CLI, --memory-limit)',
   'baseline-build': '(b) baseline count+sort',
   'encode-noop': 'encode (no-op sink)',
   'encode-npy': 'encode (.npy, CLI)',
@@ -58,18 +63,43 @@ async function measureCorpus(corpus: Corpus, scratch: string): Promise<Map<Phase
   const results = new Map<PhaseName, PhaseResult>();
   for (const phase of PHASES) {
     say(`  ${corpus.name}: ${phase}`);
-    const spec: PhaseSpec = {
-      phase,
-      corpus: corpus.path,
-      lexicon: join(scratch, `${corpus.name}.lexicon.json`),
-      out: join(scratch, `${corpus.name}-encoded`),
-      cap: 24_000,
-      length: corpus.length,
-      ...(corpus.label === undefined ? {} : { label: corpus.label }),
-    };
-    results.set(phase, await spawnPhase(spec));
+    results.set(phase, await spawnPhase(specOf(corpus, phase, scratch)));
   }
   return results;
+}
+
+/** Spec of one phase on a corpus. */
+function specOf(corpus: Corpus, phase: PhaseName, scratch: string): PhaseSpec {
+  return {
+    phase,
+    corpus: corpus.path,
+    lexicon: join(scratch, `${corpus.name}.lexicon.json`),
+    out: join(scratch, `${corpus.name}-encoded`),
+    cap: corpus.cap,
+    length: corpus.length,
+    ...(corpus.label === undefined ? {} : { label: corpus.label }),
+  };
+}
+
+/**
+ * The bounded build against the unbounded ones on a corpus (`--large`): `lexlock build --memory-limit`,
+ * then `--threads 1`, each in its own process, beside the all-cores build measureCorpus ran; fails
+ * the bench when the bounded lexicon's fingerprint is not the unbounded one's.
+ */
+async function measureBounded(corpus: Corpus, scratch: string, results: Map<PhaseName, PhaseResult>): Promise<string[]> {
+  const measured = async (phase: PhaseName, result?: PhaseResult): Promise<MeasuredBuild> => {
+    const spec = { ...specOf(corpus, phase, scratch), memoryLimitMiB: BENCH_MEMORY_LIMIT_MIB };
+    if (result === undefined) say(`  ${corpus.name}: ${phase}`);
+    const r = result ?? (await spawnPhase(spec));
+    const path = cliLexiconOf(spec) as string;
+    return { seconds: r.seconds, maxRssKiB: r.maxRssKiB, fingerprint: fingerprintOf(await readFile(path, 'utf8'), path) };
+  };
+  const allCores = await measured('build-cli', results.get('build-cli'));
+  const bounded = await measured('build-cli-bounded');
+  const oneThread = await measured('build-cli-one-thread');
+  checkSameFingerprint(allCores, bounded, BENCH_MEMORY_LIMIT_MIB);
+  checkSameFingerprint(oneThread, bounded, BENCH_MEMORY_LIMIT_MIB);
+  return boundedLines(allCores, oneThread, bounded, BENCH_MEMORY_LIMIT_MIB);
 }
 
 function corpusRows(corpus: Corpus, results: Map<PhaseName, PhaseResult>): string[][] {
@@ -120,25 +150,27 @@ async function main(): Promise<void> {
     say(`lexlock benchmark on ${machine}; corpora in ${scratch}`);
     const corpora: Corpus[] = [];
     say('generating the mail-like folder corpus');
-    corpora.push({ name: 'mail', path: join(scratch, 'mail'), written: await writeMailCorpus(join(scratch, 'mail'), { files: options.mailFiles, seed: options.seed }), length: 400 });
+    corpora.push({ name: 'mail', path: join(scratch, 'mail'), written: await writeMailCorpus(join(scratch, 'mail'), { files: options.mailFiles, seed: options.seed }), length: 400, cap: 24_000 });
     say('generating the review-like CSV');
-    corpora.push({ name: 'reviews', path: join(scratch, 'reviews.csv'), written: await writeReviewCsv(join(scratch, 'reviews.csv'), { rows: options.reviewRows, seed: options.seed }), label: 'stars', length: 120 });
+    corpora.push({ name: 'reviews', path: join(scratch, 'reviews.csv'), written: await writeReviewCsv(join(scratch, 'reviews.csv'), { rows: options.reviewRows, seed: options.seed }), label: 'stars', length: 120, cap: 24_000 });
     if (options.largeMegabytes > 0) {
       say(`generating the large-vocabulary text (${options.largeMegabytes} MB)`);
       const written = await writeZipfText(join(scratch, 'large.txt'), { bytes: options.largeMegabytes * 1e6, seed: options.seed });
-      corpora.push({ name: 'large-vocab', path: join(scratch, 'large.txt'), written, length: 64, distinct: written.distinctTokens });
+      corpora.push({ name: 'large-vocab', path: join(scratch, 'large.txt'), written, length: 64, cap: LARGE_CAP, distinct: written.distinctTokens });
     }
     const rows: string[][] = [];
     const endToEnd: string[] = [];
     const scaling: Array<[string, ThreadScaling]> = [];
+    let bounded: string[] = [];
     for (const corpus of corpora) {
       const results = await measureCorpus(corpus, scratch);
+      if (corpus.name === 'large-vocab') bounded = await measureBounded(corpus, scratch, results);
       rows.push(...corpusRows(corpus, results));
       endToEnd.push(endToEndLine(corpus, results));
       if (corpus.name !== 'large-vocab') {
         say(`  ${corpus.name}: thread scaling (two one-thread builds at once; build, encode, audit on 1 and 2 threads)`);
         const label = corpus.label === undefined ? {} : { label: corpus.label };
-        scaling.push([corpus.name, await threadScaling({ corpus: corpus.path, lexicon: join(scratch, `${corpus.name}.lexicon.json`), out: scratch, cap: 24_000, length: corpus.length, ...label }, join(scratch, `${corpus.name}.scaling.json`))]);
+        scaling.push([corpus.name, await threadScaling({ corpus: corpus.path, lexicon: join(scratch, `${corpus.name}.lexicon.json`), out: scratch, cap: corpus.cap, length: corpus.length, ...label }, join(scratch, `${corpus.name}.scaling.json`))]);
       }
       const built = results.get('build');
       if (built !== undefined) corpus.distinct = built.figures['distinctTokens'] ?? 0;
@@ -159,7 +191,7 @@ async function main(): Promise<void> {
     out.push('');
     out.push('Corpora (generated, seeded):');
     for (const c of corpora) {
-      out.push(`  ${c.name.padEnd(12)} ${fixed(mb(c.written.bytes), 1).padStart(6)} MB  ${String(c.written.documents).padStart(8)} documents  ${String(c.distinct ?? 0).padStart(8)} distinct tokens`);
+      out.push(`  ${c.name.padEnd(12)} ${fixed(mb(c.written.bytes), 1).padStart(6)} MB  ${String(c.written.documents).padStart(8)} documents  ${String(c.distinct ?? 0).padStart(8)} distinct tokens  cap ${c.cap}`);
     }
     out.push('');
     out.push(formatTable(['corpus', 'phase', 'MB/s', 'vs (a)', 'vs (b)', 'peak RSS MiB', 'seconds'], rows));
@@ -174,6 +206,10 @@ async function main(): Promise<void> {
     out.push('and `lexlock build --encode` (one reading of the corpus, all cores); (c) is a leaner baseline in one script: each document');
     out.push('read and tokenized once, every document\'s tokens kept in memory, counted, sorted, then encoded from the kept tokens:');
     for (const line of endToEnd) out.push(`  ${line}`);
+    if (bounded.length > 0) {
+      out.push(`Bounded memory, large-vocab (cap ${LARGE_CAP.toLocaleString('en-US')}; peak RSS of each build's own process; one run each):`);
+      for (const line of bounded) out.push(`  ${line}`);
+    }
     out.push('Thread scaling, 1 -> 2 threads (library steps): ceiling = two one-thread builds started at once, their combined speed over');
     out.push('one alone; efficiency = (2-thread speed-up) / ceiling; each time the median of 3 rounds taken in turn, each run a new process:');
     const x = (n: number | null) => (n === null ? 'n/a' : `${fixed(n, 2)}x`);

@@ -229,7 +229,9 @@ function measureWindows(lexicon: Lexicon, figures: Record<string, number>): void
 }
 
 /** The phases run in this process (the command-line phases run dist/bin.js: see spawnPhase). */
-const PHASES: Record<Exclude<PhaseSpec['phase'], 'build-cli' | 'build-encode-cli' | 'encode-npy'>, (spec: PhaseSpec) => Promise<Measured>> = {
+type CliPhase = 'build-cli' | 'build-cli-one-thread' | 'build-cli-bounded' | 'build-encode-cli' | 'encode-npy';
+const CLI_PHASES: readonly PhaseSpec['phase'][] = ['build-cli', 'build-cli-one-thread', 'build-cli-bounded', 'build-encode-cli', 'encode-npy'] satisfies CliPhase[];
+const PHASES: Record<Exclude<PhaseSpec['phase'], CliPhase>, (spec: PhaseSpec) => Promise<Measured>> = {
   tokenize: (spec) => {
     const rules = resolveRules();
     return measureTokenize(spec, (text) => tokenize(text, rules));
@@ -248,7 +250,8 @@ const PHASES: Record<Exclude<PhaseSpec['phase'], 'build-cli' | 'build-encode-cli
 
 /** Runs one phase in this process and reports its time, figures and this process's peak memory. */
 export async function runPhase(spec: PhaseSpec): Promise<PhaseResult> {
-  if (spec.phase === 'build-cli' || spec.phase === 'build-encode-cli' || spec.phase === 'encode-npy') throw new Error(`${spec.phase} runs the built executable: use spawnPhase`);
-  const measured = await PHASES[spec.phase](spec);
+  const phase = spec.phase;
+  if (CLI_PHASES.includes(phase)) throw new Error(`${phase} runs the built executable: use spawnPhase`);
+  const measured = await PHASES[phase as Exclude<PhaseSpec['phase'], CliPhase>](spec);
   return { phase: spec.phase, ...measured, maxRssKiB: process.resourceUsage().maxRSS };
 }

@@ -6,14 +6,28 @@ import type { PhaseResult, PhaseSpec } from './PhaseSpec.js';
 const here = dirname(fileURLToPath(import.meta.url));
 const root = join(here, '..', '..');
 
+/** The lexicon file a command-line build phase writes (null for the other phases). */
+export function cliLexiconOf(spec: PhaseSpec): string | null {
+  if (spec.phase === 'build-cli') return `${spec.lexicon}.cli.json`;
+  if (spec.phase === 'build-cli-one-thread') return `${spec.lexicon}.cli-one-thread.json`;
+  if (spec.phase === 'build-cli-bounded') return `${spec.lexicon}.bounded.json`;
+  if (spec.phase === 'build-encode-cli') return `${spec.lexicon}.one-pass.json`;
+  return null;
+}
+
 /** The `lexlock` arguments of the phases that run the command-line tool as users do. */
 function cliArguments(spec: PhaseSpec): string[] | null {
-  const build = (lexicon: string, more: string[]) => {
-    const args = ['build', spec.corpus, '-o', lexicon, '--cap', String(spec.cap), '--length', String(spec.length), ...more, '--quiet', '--force'];
+  const build = (more: string[]) => {
+    const args = ['build', spec.corpus, '-o', cliLexiconOf(spec) as string, '--cap', String(spec.cap), '--length', String(spec.length), ...more, '--quiet', '--force'];
     return spec.label === undefined ? args : [...args, '--label', spec.label];
   };
-  if (spec.phase === 'build-cli') return build(`${spec.lexicon}.cli.json`, []);
-  if (spec.phase === 'build-encode-cli') return build(`${spec.lexicon}.one-pass.json`, ['--encode', `${spec.out}-one-pass`]);
+  if (spec.phase === 'build-cli') return build([]);
+  if (spec.phase === 'build-cli-one-thread') return build(['--threads', '1']);
+  if (spec.phase === 'build-cli-bounded') {
+    if (spec.memoryLimitMiB === undefined) throw new Error('build-cli-bounded needs memoryLimitMiB');
+    return build(['--memory-limit', String(spec.memoryLimitMiB)]);
+  }
+  if (spec.phase === 'build-encode-cli') return build(['--encode', `${spec.out}-one-pass`]);
   if (spec.phase === 'encode-npy') {
     // A lexicon with labels needs its corpus read with them (encode stops with MISSING_LABELS otherwise).
     const args = ['encode', spec.corpus, '--lexicon', spec.lexicon, '-o', spec.out, '--quiet', '--force'];

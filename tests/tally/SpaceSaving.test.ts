@@ -65,6 +65,19 @@ describe('SpaceSaving', () => {
     expect(gaveUp).toBeGreaterThan(0);
   });
 
+  it('says whether an offered token was monitored already (property, against the counters before the offer)', () => {
+    fc.assert(
+      fc.property(fc.array(fc.integer({ min: 0, max: 30 }).map((n) => `${'x'.repeat(n % 5)}t${n * n}`), { maxLength: 300 }), fc.integer({ min: 1, max: 12 }), fc.integer({ min: 12, max: 80 }), (stream, k, arena) => {
+        const s = new SpaceSaving(k, arena);
+        for (const t of stream) {
+          const before = new Set([...s.entries()].map((e) => e.token));
+          expect(s.offer(hashOf(t), t, 0, t.length, false), t).toBe(before.has(t));
+        }
+      }),
+      { numRuns: 200 },
+    );
+  });
+
   it('is exact while counters are free', () => {
     const s = new SpaceSaving(5, 100);
     run(s, ['a', 'b', 'a', 'c', 'a', 'b']);

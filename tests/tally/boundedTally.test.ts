@@ -5,7 +5,9 @@ import { freeze } from '../../src/lexicon/freeze.js';
 import { SeenTokens } from '../../src/lexicon/SeenTokens.js';
 import { resolveRules } from '../../src/rules/TextRules.js';
 import { boundedTally, type BoundedTally } from '../../src/tally/boundedTally.js';
+import { DistinctEstimate } from '../../src/tally/DistinctEstimate.js';
 import { memoryPlan, type MemoryPlan } from '../../src/tally/memoryPlan.js';
+import { spanHashes } from '../../src/tally/spanHashes.js';
 import { Tally } from '../../src/tally/Tally.js';
 import { letters, seeded } from '../helpers/generatedCorpora.js';
 
@@ -15,6 +17,25 @@ const rules = resolveRules();
 function zipfDocuments(seed: number, documents: number, vocabulary: number): string[] {
   const next = seeded(seed);
   return Array.from({ length: documents }, () => Array.from({ length: 12 }, () => letters(Math.floor(vocabulary ** next()))).join(' '));
+}
+
+/**
+ * Documents of 12 words in which many tokens share each count: `groups` counts (1, 4, 9, … `groups`²), `perGroup`
+ * tokens of each, and as many tokens that occur once, every occurrence shuffled (seeded), so a cap falls inside a group of equal counts
+ * and the tokens it keeps are chosen by string order (common practice: ties are where top-k counts err).
+ */
+function tiedDocuments(seed: number, groups: number, perGroup: number): string[] {
+  const next = seeded(seed);
+  const words: string[] = [];
+  for (let g = 1; g <= groups; g++) for (let k = 0; k < perGroup; k++) for (let n = 0; n < g * g; n++) words.push(letters(g * perGroup + k));
+  for (let k = 0; k < perGroup * groups; k++) words.push(`once${letters(k)}`);
+  for (let i = words.length - 1; i > 0; i--) {
+    const j = Math.floor(next() * (i + 1));
+    [words[i], words[j]] = [words[j] as string, words[i] as string];
+  }
+  const docs: string[] = [];
+  for (let i = 0; i < words.length; i += 12) docs.push(words.slice(i, i + 12).join(' '));
+  return docs;
 }
 
 /** A real plan for 32 MiB with only `counters` counters and `arenaUnits` of arena: the seam that makes a small corpus need two passes. */
@@ -42,10 +63,25 @@ function expectLikeExact(bounded: BoundedTally, docs: readonly string[], cap: nu
     // HyperLogLog with 2^14 registers (Flajolet et al. 2007): standard error 0.8 %; small counts are exact-ish (linear counting).
     expect(Math.abs(b.types - e.types) / e.types).toBeLessThan(0.05);
   }
-  // The filter of every token of the corpus: never "not seen" for one of them.
+  // The filter of every token of the corpus: never "not seen" for one of them; bit for bit the filter
+  // of the distinct tokens sized for `types` (pass 1 adds a token only when first met: the same bits).
   expect(b.seen).not.toBeNull();
   const seen = SeenTokens.parse(b.seen as NonNullable<typeof b.seen>);
   for (const d of docs) for (const t of d.split(' ')) expect(seen.has(t), t).toBe(true);
+  const distinct = new Set(docs.flatMap((d) => d.split(' ')));
+  expect(b.seen).toEqual(SeenTokens.of(distinct, b.types)?.toJSON());
+  if (bounded.passes === 2) {
+    // The estimate of every distinct token added once (HyperLogLog keeps a maximum: repeats change nothing),
+    // or the counters in use when more: never fewer than them.
+    const estimate = new DistinctEstimate();
+    const out = new Int32Array(3);
+    for (const t of distinct) {
+      spanHashes(t, 0, t.length, false, out);
+      estimate.add(out[1] as number, out[2] as number);
+    }
+    if (estimate.estimate() >= bounded.capacity) expect(b.types).toBe(estimate.estimate());
+    else expect(b.types).toBeGreaterThanOrEqual(estimate.estimate());
+  }
 }
 
 describe('boundedTally', () => {
@@ -73,6 +109,29 @@ describe('boundedTally', () => {
     );
     // The check must mostly succeed here, not refuse its way out, and take the second pass often.
     expect(proven).toBeGreaterThan(10);
+    expect(twoPasses).toBeGreaterThan(5);
+    expect(refused).toBeGreaterThan(0);
+  });
+
+  it('gives the lexicon of an exact tally on corpora of many tied counts, or names a limit that does (property)', async () => {
+    let twoPasses = 0;
+    let refused = 0;
+    await fc.assert(
+      fc.asyncProperty(fc.integer({ min: 1, max: 2 ** 31 }), fc.integer({ min: 2, max: 9 }), fc.integer({ min: 3, max: 60 }), fc.integer({ min: 1, max: 100 }), fc.integer({ min: 20, max: 300 }), async (seed, groups, perGroup, cap, counters) => {
+        const docs = tiedDocuments(seed, groups, perGroup);
+        try {
+          const bounded = await boundedTally(() => docs, rules, { cap, minCount: 1, memoryLimitMiB: 32, plan: smallPlan(counters) });
+          expectLikeExact(bounded, docs, cap, 1);
+          if (bounded.passes === 2) twoPasses += 1;
+        } catch (e) {
+          expect((e as { code?: string }).code).toBe('MEMORY_LIMIT');
+          refused += 1;
+          const named = Number(/try --memory-limit (\d+)$/.exec((e as Error).message)?.[1]);
+          expectLikeExact(await boundedTally(() => docs, rules, { cap, minCount: 1, memoryLimitMiB: named }), docs, cap, 1);
+        }
+      }),
+      { numRuns: 40 },
+    );
     expect(twoPasses).toBeGreaterThan(5);
     expect(refused).toBeGreaterThan(0);
   });
