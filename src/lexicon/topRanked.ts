@@ -42,6 +42,8 @@ export function topRanked(
     }
   };
   each((token, count) => {
+    // Whether it would rank in is cheaper to ask than `accept` (a lookup, for an audit): asked first.
+    if (tokens.length === n && !ranksAfter(tokens[0] as string, counts[0] as number, token, count)) return;
     if (!accept(token, count)) return;
     if (tokens.length < n) {
       tokens.push(token);
