@@ -1,4 +1,16 @@
-import { parse, parseString, type CsvParserStream } from 'fast-csv';
+import type { CsvParserStream } from 'fast-csv';
+
+type FastCsv = typeof import('fast-csv');
+/**
+ * fast-csv, loaded the first time a batch needs it: reading never does for records the scanner gives,
+ * and loading it costs every `lexlock` run about 30-50 ms here.
+ */
+let fastCsv: FastCsv | null = null;
+
+async function loadFastCsv(): Promise<FastCsv> {
+  fastCsv ??= await import('fast-csv');
+  return fastCsv;
+}
 import { splitCsvRecord } from './splitCsvRecord.js';
 
 /** fast-csv refused record `index` of a batch given to {@link CsvFieldParser.split}; `message` is fast-csv's. */
@@ -54,7 +66,8 @@ export class CsvFieldParser {
   /** The fast-csv stream, made on first use. */
   get #stream(): CsvParserStream<Row, Row> {
     if (this.#fastCsv !== null) return this.#fastCsv;
-    const stream = parse<Row, Row>(fastCsvOptions(this.#delimiter));
+    if (fastCsv === null) throw new Error('lexlock: fast-csv is used before it was loaded; please report this');
+    const stream = fastCsv.parse<Row, Row>(fastCsvOptions(this.#delimiter));
     stream.on('data', (row: Row) => {
       this.#rows.push(row);
       this.#settle();
@@ -145,6 +158,7 @@ export class CsvFieldParser {
   /** Every record split by fast-csv. */
   async #splitWithFastCsv(records: readonly string[]): Promise<Row[]> {
     if (records.length === 0) return [];
+    await loadFastCsv();
     let rows: Row[];
     try {
       rows = await this.#write(`${LEAD}\n${records.map((r) => this.#guard(r)).join('\n')}\n`);
@@ -198,6 +212,7 @@ export class CsvFieldParser {
   /** The record fast-csv refuses on its own, found by splitting the batch's records one by one. */
   async #blame(records: readonly string[], cause: unknown): Promise<Error> {
     const message = cause instanceof Error ? cause.message : String(cause);
+    const { parseString } = await loadFastCsv();
     for (let i = 0; i < records.length; i++) {
       const refused = await new Promise<string | null>((resolve) => {
         parseString<Row, Row>(`${LEAD}\n${this.#guard(records[i]!)}\n`, fastCsvOptions(this.#delimiter))
