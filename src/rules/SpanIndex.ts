@@ -1,3 +1,5 @@
+import { LexlockError } from '../LexlockError.js';
+
 /**
  * The seed of every span hash: random per process, so text written to collide cannot be prepared in
  * advance (results never depend on it, only the slots entries land in).
@@ -5,6 +7,13 @@
 const SEED = Math.floor(Math.random() * 0x1_0000_0000) | 0;
 const A = 0x41;
 const Z = 0x5a;
+/**
+ * The most code units the keys of one index may hold in all: where a key starts is an Int32, so more
+ * would wrap around. 2^31 - 1 code units (4 GiB of them) is past what an unbounded count holds in memory
+ * anyway; a bounded one (--memory-limit) never keeps that many.
+ */
+export const MOST_UNITS = 0x7fff_ffff;
+
 /** The smallest slot table; it doubles whenever it is half full. */
 const MIN_SLOTS = 16;
 
@@ -49,8 +58,15 @@ export class SpanIndex {
   #slots: Int32Array;
   #mask: number;
 
-  /** @param keys strings to add in order (a repeated one keeps its first number). */
-  constructor(keys: Iterable<string> = []) {
+  /** The most code units the keys may hold in all ({@link MOST_UNITS}; tests set it low). */
+  readonly #mostUnits: number;
+
+  /**
+   * @param keys strings to add in order (a repeated one keeps its first number).
+   * @param mostUnits the most code units all keys may hold (default {@link MOST_UNITS}).
+   */
+  constructor(keys: Iterable<string> = [], mostUnits = MOST_UNITS) {
+    this.#mostUnits = mostUnits;
     this.#hashes = new Int32Array(MIN_SLOTS / 2);
     this.#slots = new Int32Array(MIN_SLOTS * 2);
     this.#mask = MIN_SLOTS - 1;
@@ -117,6 +133,12 @@ export class SpanIndex {
     const known = this.#find(hash, key);
     if (known >= 0) return known;
     const entry = this.#keys.length;
+    if (this.#unitCount + key.length > this.#mostUnits) {
+      throw new LexlockError(
+        'MEMORY_LIMIT',
+        `the distinct tokens counted hold more than ${this.#mostUnits.toLocaleString('en-US')} code units in all, more than one index holds; build with --memory-limit (a bounded count keeps only the tokens that can make the cap)`,
+      );
+    }
     if (entry === this.#hashes.length) this.#grow();
     const mask = this.#mask;
     let s = hash & mask;

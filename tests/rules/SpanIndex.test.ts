@@ -61,4 +61,18 @@ describe('SpanIndex', () => {
       { numRuns: 300 },
     );
   });
+
+  it('refuses, rather than wrap around, keys past the code units one index holds', () => {
+    // Where a key starts is an Int32: past 2^31 - 1 code units it would wrap and find wrong keys.
+    const index = new SpanIndex(['ferry'], 9);
+    expect(index.add('late')).toBe(1);
+    expect(index.add('ferry')).toBe(0); // held already: nothing added
+    expect(() => index.add('x')).toThrow(
+      expect.objectContaining({
+        code: 'MEMORY_LIMIT',
+        message: 'the distinct tokens counted hold more than 9 code units in all, more than one index holds; build with --memory-limit (a bounded count keeps only the tokens that can make the cap)',
+      }),
+    );
+    expect([index.size, index.indexOf('x'), index.indexOf('late')]).toEqual([2, -1, 1]);
+  });
 });
