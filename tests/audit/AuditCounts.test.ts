@@ -43,8 +43,16 @@ function figures(counts: AuditCounts) {
 describe('AuditCounts (property, against a plain tally of the tokens as strings)', () => {
   it.each(RULES)('%s', (_name, rules) => {
     fc.assert(
-      fc.property(fc.array(doc, { minLength: 1, maxLength: 8 }), fc.array(doc, { maxLength: 10 }), fc.integer({ min: 0, max: 6 }), fc.integer({ min: 0, max: 10 }), (fitted, audited, cap, split) => {
-        const lexicon = freeze(Tally.fromTexts(fitted, rules), { cap });
+      fc.property(
+        fc.array(doc, { minLength: 1, maxLength: 8 }),
+        fc.array(doc, { maxLength: 10 }),
+        fc.integer({ min: 0, max: 6 }),
+        fc.integer({ min: 0, max: 10 }),
+        fc.constantFrom('first' as const, 'last' as const),
+        fc.subarray(['late', 'pier', '<sep>']),
+        (fitted, audited, cap, split, oovPlace, reserved) => {
+        // Both places of the OOV id and reserved tokens: the ids a known token is counted by must map back to it.
+        const lexicon = freeze(Tally.fromTexts(fitted, rules), { cap, oov: oovPlace, reserved });
         const length = 4;
         const counts = new AuditCounts(lexicon, length);
         for (const d of audited) counts.add(d.text, d.label);
@@ -80,7 +88,8 @@ describe('AuditCounts (property, against a plain tally of the tokens as strings)
         for (const d of audited.slice(0, at)) onwards.add(d.text, d.label);
         onwards.merge(second.parts());
         expect(figures(onwards)).toEqual(got);
-      }),
+        },
+      ),
       { numRuns: 120 },
     );
   });
