@@ -250,11 +250,7 @@ export class Lexicon {
 
   /** The id of token `k` of `scanned`, looked up where it lies in the scanned text. */
   #idOfToken(scanned: TokenSpans, k: number): number {
-    const start = scanned.starts[k] as number;
-    const number =
-      start >= 0
-        ? this.index.indexOfSpan(scanned.text, start, scanned.ends[k] as number, scanned.folded)
-        : this.index.indexOf(scanned.strings[k] as string);
+    const number = this.index.indexOfToken(scanned, k);
     return number < 0 ? this.oovId : number + this.firstTokenId;
   }
 

@@ -1,4 +1,5 @@
 import { LexlockError } from '../LexlockError.js';
+import type { TokenSpans } from './TokenSpans.js';
 
 /**
  * The seed of every span hash: random per process, so text written to collide cannot be prepared in
@@ -96,6 +97,15 @@ export class SpanIndex {
   /** The number of `key`, or -1. */
   indexOf(key: string): number {
     return this.indexOfSpan(key, 0, key.length, false);
+  }
+
+  /**
+   * The number of token `k` of a scan (see scanTokens), or -1: looked up where it lies in the scanned
+   * text, or as the string it was made (a collapsed placeholder, an alien piece).
+   */
+  indexOfToken(spans: TokenSpans, k: number): number {
+    const start = spans.starts[k] as number;
+    return start >= 0 ? this.indexOfSpan(spans.text, start, spans.ends[k] as number, spans.folded) : this.indexOf(spans.strings[k] as string);
   }
 
   /** The number of the string `text[from, to)` (with A-Z read as a-z when `folded`), or -1. */

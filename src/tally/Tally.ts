@@ -64,7 +64,7 @@ export class Tally {
   tokens = 0;
   // Token -> its number (the order first counted, from 0), found by a span of a text as well as by a
   // string, so counting a text makes no string for a token already counted; the figures of token n
-  // are at [n] of the arrays below, so a token costs its string and an index entry, not an object.
+  // are in #figures, so a token costs its string and an index entry, not an object.
   readonly #numbers = new SpanIndex();
   /**
    * Three figures a token, side by side so that counting one reads one place: at [3n] token n's
@@ -171,12 +171,8 @@ export class Tally {
    */
   addSpans(spans: TokenSpans, label?: string, numbers: Int32Array | null = null): this {
     const total = this.#begin(spans.count);
-    const index = this.#numbers;
-    const { text, starts, ends, strings, folded } = spans;
     for (let k = 0; k < total; k++) {
-      const start = starts[k] as number;
-      const n = start >= 0 ? index.indexOfSpan(text, start, ends[k] as number, folded) : index.indexOf(strings[k] as string);
-      const counted = n >= 0 ? this.#countAgain(n) : this.#countNew(spans.tokenAt(k));
+      const counted = this.#countToken(spans, k);
       if (numbers !== null) numbers[k] = counted;
     }
     if (label !== undefined) addLabel(this.labels, label, 1, total);
@@ -191,17 +187,15 @@ export class Tally {
    */
   addPickedSpans(spans: TokenSpans, label: string | undefined, picked: Int32Array, count: number): this {
     this.#begin(spans.count);
-    const index = this.#numbers;
-    const { text, starts, ends, strings, folded } = spans;
-    for (let p = 0; p < count; p++) {
-      const k = picked[p] as number;
-      const start = starts[k] as number;
-      const n = start >= 0 ? index.indexOfSpan(text, start, ends[k] as number, folded) : index.indexOf(strings[k] as string);
-      if (n >= 0) this.#countAgain(n);
-      else this.#countNew(spans.tokenAt(k));
-    }
+    for (let p = 0; p < count; p++) this.#countToken(spans, picked[p] as number);
     if (label !== undefined) addLabel(this.labels, label, 1, spans.count);
     return this;
+  }
+
+  /** Counts token `k` of `spans` in the document being counted; returns its number. */
+  #countToken(spans: TokenSpans, k: number): number {
+    const n = this.#numbers.indexOfToken(spans, k);
+    return n >= 0 ? this.#countAgain(n) : this.#countNew(spans.tokenAt(k));
   }
 
   #add(tokens: readonly string[], label: string | undefined, numbers: Int32Array | null): this {
