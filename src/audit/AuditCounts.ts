@@ -2,11 +2,9 @@ import type { Lexicon } from '../lexicon/Lexicon.js';
 import { scanTokens } from '../rules/scanTokens.js';
 import { TokenSpans } from '../rules/TokenSpans.js';
 import { Tally, type TallyCounts } from '../tally/Tally.js';
+import { COUNT, DOCUMENTS, TokenFigures } from '../tally/TokenFigures.js';
 import type { LabelAudit } from './CoverageReport.js';
 import { OovPositions, type OovPositionCounts } from './OovPositions.js';
-
-/** Figures kept an id in AuditCounts' #known: occurrences, documents, the last document counted. */
-const KNOWN_FIGURES = 3;
 
 /** Where {@link AuditCounts.add} leaves a document's tokens (reused: one document at a time). */
 const scanned = new TokenSpans();
@@ -31,11 +29,10 @@ export class AuditCounts implements Omit<AuditParts, 'tally'> {
   /** Every document's totals, and the occurrences of tokens outside the lexicon (see {@link AuditCounts.tally}). */
   readonly #tally: Tally;
   /**
-   * Occurrences, documents and last document (numbered here) of each lexicon token, by id, three
-   * figures an id: a token the lexicon knows is counted by its id, found by the one lookup that gives
-   * the id, rather than looked up a second time in the tally.
+   * Occurrences and documents of each lexicon token, by id: a token the lexicon knows is counted by its
+   * id, found by the one lookup that gives the id, rather than looked up a second time in the tally.
    */
-  #known: Float64Array;
+  readonly #known: TokenFigures;
   /** The current document's ids, then the places of its OOV tokens (room for the longest document so far). */
   #ids = new Int32Array(256);
   #oovPlaces = new Int32Array(256);
@@ -53,7 +50,7 @@ export class AuditCounts implements Omit<AuditParts, 'tally'> {
     this.lexicon = lexicon;
     this.length = length;
     this.#tally = new Tally(lexicon.rules);
-    this.#known = new Float64Array(KNOWN_FIGURES * (lexicon.size + 1));
+    this.#known = new TokenFigures(lexicon.size);
   }
 
   /** Distinct tokens kept so far outside the lexicon (what grows with the corpus), without settling the counts. */
@@ -92,12 +89,7 @@ export class AuditCounts implements Omit<AuditParts, 'tally'> {
         oovPlaces[oov++] = i;
         continue;
       }
-      const at = KNOWN_FIGURES * id;
-      known[at] = (known[at] as number) + 1;
-      if (known[at + 2] !== document) {
-        known[at + 2] = document;
-        known[at + 1] = (known[at + 1] as number) + 1;
-      }
+      known.occur(id, document);
     }
     this.#tally.addPickedSpans(scanned, label, oovPlaces, oov);
     this.oovTokens += oov;
@@ -115,14 +107,11 @@ export class AuditCounts implements Omit<AuditParts, 'tally'> {
   /** Moves the counts kept by id into the tally (as tokens), so that the tally holds them all. */
   #settle(): void {
     const known = this.#known;
-    for (let id = 0; id * KNOWN_FIGURES < known.length; id++) {
-      const at = KNOWN_FIGURES * id;
-      const count = known[at] as number;
+    for (let id = 0; id < this.lexicon.size; id++) {
+      const count = known.at(id, COUNT);
       if (count === 0) continue;
-      this.#tally.addToken(this.lexicon.tokenAt(id) as string, count, known[at + 1] as number);
-      known[at] = 0;
-      known[at + 1] = 0;
-      known[at + 2] = 0;
+      this.#tally.addToken(this.lexicon.tokenAt(id) as string, count, known.at(id, DOCUMENTS));
+      known.clear(id);
     }
   }
 

@@ -5,6 +5,7 @@ import { scanTokens } from '../rules/scanTokens.js';
 import { SpanIndex } from '../rules/SpanIndex.js';
 import type { TextRules } from '../rules/TextRules.js';
 import { TokenSpans } from '../rules/TokenSpans.js';
+import { COUNT, DOCUMENTS, TokenFigures } from './TokenFigures.js';
 import { MAP_ENTRIES_MOST, TokenMap } from './TokenMap.js';
 
 /** A text with an optional label, as corpus readers and callers hand them in. */
@@ -33,14 +34,6 @@ export interface TallyCounts {
   readonly labels: ReadonlyMap<string, LabelCounts>;
 }
 
-/** Room for this many tokens' figures at first; it doubles when full. */
-const FIRST_ROOM = 1024;
-
-/** Figures kept a token, and where each is among them (see Tally's #figures). */
-const FIGURES = 3;
-const COUNT = 0;
-const DOCUMENTS = 1;
-const LAST = 2;
 
 /** Where {@link Tally.add} and {@link Tally.addNumberedText} leave a text's tokens (reused: one text at a time). */
 const scanned = new TokenSpans();
@@ -64,14 +57,9 @@ export class Tally {
   tokens = 0;
   // Token -> its number (the order first counted, from 0), found by a span of a text as well as by a
   // string, so counting a text makes no string for a token already counted; the figures of token n
-  // are in #figures, so a token costs its string and an index entry, not an object.
+  // are in #figures (TokenFigures), so a token costs its string and an index entry, not an object.
   readonly #numbers = new SpanIndex();
-  /**
-   * Three figures a token, side by side so that counting one reads one place: at [3n] token n's
-   * occurrences, at [3n + 1] the documents it occurs in, at [3n + 2] the number of the last document
-   * counted with it (document frequency is counted once a document; 0 for none).
-   */
-  #figures: Float64Array = new Float64Array(FIRST_ROOM * FIGURES);
+  readonly #figures = new TokenFigures();
   // Snapshots handed out by `counts` and `documentFrequency`, dropped when the tally changes.
   #counts: ReadonlyMap<string, number> | null = null;
   #frequency: ReadonlyMap<string, number> | null = null;
@@ -83,7 +71,7 @@ export class Tally {
   /** Occurrences of `token` (0 when never counted). */
   countOf(token: string): number {
     const n = this.#numbers.indexOf(token);
-    return n < 0 ? 0 : (this.#figures[FIGURES * n + COUNT] as number);
+    return n < 0 ? 0 : this.#figures.at(n, COUNT);
   }
 
   /** The number of `token`: its place in the order first counted (as {@link Tally.entries}), or -1. */
@@ -94,14 +82,14 @@ export class Tally {
   /** Documents `token` occurs in (0 when never counted). */
   documentsOf(token: string): number {
     const n = this.#numbers.indexOf(token);
-    return n < 0 ? 0 : (this.#figures[FIGURES * n + DOCUMENTS] as number);
+    return n < 0 ? 0 : this.#figures.at(n, DOCUMENTS);
   }
 
   /** Every counted token with its occurrences and document frequency, in the order first counted. */
   *entries(): IterableIterator<[token: string, count: number, documents: number]> {
     let n = 0;
     for (const token of this.#numbers.keys()) {
-      yield [token, this.#figures[FIGURES * n + COUNT] as number, this.#figures[FIGURES * n + DOCUMENTS] as number];
+      yield [token, this.#figures.at(n, COUNT), this.#figures.at(n, DOCUMENTS)];
       n++;
     }
   }
@@ -109,7 +97,7 @@ export class Tally {
   /** Calls `visit` with every counted token and its occurrences, in the order first counted (no pair made for each). */
   forEachCount(visit: (token: string, count: number) => void): void {
     let n = 0;
-    for (const token of this.#numbers.keys()) visit(token, this.#figures[FIGURES * n++ + COUNT] as number);
+    for (const token of this.#numbers.keys()) visit(token, this.#figures.at(n++, COUNT));
   }
 
   /** Every counted token, in the order first counted. */
@@ -119,7 +107,7 @@ export class Tally {
 
   /** Occurrences of every counted token, in the order first counted (index n: token number n). */
   countList(): Float64Array {
-    return this.#column(COUNT);
+    return this.#figures.column(COUNT, this.#numbers.size);
   }
 
   /** Occurrences per token: a read-only snapshot, made once and kept until the tally changes. */
@@ -222,25 +210,13 @@ export class Tally {
 
   /** One more occurrence of token `n` in the document being counted; returns `n`. */
   #countAgain(n: number): number {
-    const figures = this.#figures;
-    const at = FIGURES * n;
-    figures[at + COUNT] = (figures[at + COUNT] as number) + 1;
-    const document = this.documents;
-    if (figures[at + LAST] !== document) {
-      figures[at + LAST] = document;
-      figures[at + DOCUMENTS] = (figures[at + DOCUMENTS] as number) + 1;
-    }
+    this.#figures.occur(n, this.documents);
     return n;
   }
 
   /** The first occurrence of `token` (not counted before), in the document being counted; returns its number. */
   #countNew(token: string): number {
-    const n = this.#newNumber(detached(token));
-    const at = FIGURES * n;
-    this.#figures[at + COUNT] = 1;
-    this.#figures[at + DOCUMENTS] = 1;
-    this.#figures[at + LAST] = this.documents;
-    return n;
+    return this.#countAgain(this.#numbers.add(detached(token)));
   }
 
   /**
@@ -255,26 +231,8 @@ export class Tally {
 
   /** {@link Tally.addToken} without the cache reset; returns the token's number. */
   #addCounts(token: string, count: number, documents: number): number {
-    let n = this.#numbers.indexOf(token);
-    if (n < 0) {
-      n = this.#newNumber(token);
-      this.#figures[FIGURES * n + COUNT] = count;
-      this.#figures[FIGURES * n + DOCUMENTS] = documents;
-    } else {
-      const at = FIGURES * n;
-      this.#figures[at + COUNT] = (this.#figures[at + COUNT] as number) + count;
-      this.#figures[at + DOCUMENTS] = (this.#figures[at + DOCUMENTS] as number) + documents;
-    }
-    // 0 matches no document counted here, so a later document still counts as a new one.
-    this.#figures[FIGURES * n + LAST] = 0;
-    return n;
-  }
-
-  /** Numbers a new token, making room for its figures. */
-  #newNumber(token: string): number {
-    const n = this.#numbers.size;
-    if (FIGURES * n === this.#figures.length) this.#figures = grown(this.#figures, this.#figures.length * 2);
-    this.#numbers.add(token);
+    const n = this.#numbers.add(token);
+    this.#figures.add(n, count, documents);
     return n;
   }
 
@@ -282,16 +240,7 @@ export class Tally {
   #snapshot(figure: number): ReadonlyMap<string, number> {
     const out = this.#numbers.size <= MAP_ENTRIES_MOST ? new Map<string, number>() : new TokenMap<number>();
     let n = 0;
-    const figures = this.#figures;
-    for (const token of this.#numbers.keys()) out.set(token, figures[FIGURES * n++ + figure] as number);
-    return out;
-  }
-
-  /** Figure `figure` (COUNT or DOCUMENTS) of every token, in the order first counted. */
-  #column(figure: number): Float64Array {
-    const out = new Float64Array(this.#numbers.size);
-    const figures = this.#figures;
-    for (let n = 0; n < out.length; n++) out[n] = figures[FIGURES * n + figure] as number;
+    for (const token of this.#numbers.keys()) out.set(token, this.#figures.at(n++, figure));
     return out;
   }
 
@@ -334,8 +283,9 @@ export class Tally {
 
   /** The counts as flat arrays, to send to another thread (structured cloning copies arrays fast). */
   toCounts(): TallyCounts {
+    const n = this.#numbers.size;
     const { documents, tokens, lengths, labels } = this;
-    return { documents, tokens, types: this.#numbers.keyList(), occurrences: this.#column(COUNT), documentFrequency: this.#column(DOCUMENTS), lengths, labels };
+    return { documents, tokens, types: this.#numbers.keyList(), occurrences: this.#figures.column(COUNT, n), documentFrequency: this.#figures.column(DOCUMENTS, n), lengths, labels };
   }
 
   /** Counts texts from a synchronous iterable. */
@@ -356,13 +306,6 @@ export class Tally {
     this.#counts = null;
     this.#frequency = null;
   }
-}
-
-/** `figures` copied into an array of `room` places. */
-function grown(figures: Float64Array, room: number): Float64Array {
-  const out = new Float64Array(room);
-  out.set(figures);
-  return out;
 }
 
 function addLabel(labels: Map<string, LabelCounts>, label: string, documents: number, tokens: number): void {
