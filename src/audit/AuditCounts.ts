@@ -36,7 +36,6 @@ export class AuditCounts implements Omit<AuditParts, 'tally'> {
   /** The current document's ids, then the places of its OOV tokens (room for the longest document so far). */
   #ids = new Int32Array(256);
   #oovPlaces = new Int32Array(256);
-  #document = 0;
   readonly oovPositions = new OovPositions();
   readonly labels = new Map<string, LabelAudit>();
   oovTokens = 0;
@@ -80,7 +79,8 @@ export class AuditCounts implements Omit<AuditParts, 'tally'> {
     const ids = this.lexicon.idsOfScanned(scanned, this.#ids);
     const oovId = this.lexicon.oovId;
     const known = this.#known;
-    const document = ++this.#document;
+    // The number the tally gives this document when it counts it below (numbers only grow, merges too).
+    const document = this.#tally.documents + 1;
     const oovPlaces = this.#oovPlaces;
     let oov = 0;
     for (let i = 0; i < n; i++) {

@@ -129,15 +129,14 @@ export class Tally {
 
   /** Counts one document's tokens (already tokenized under `this.rules`). */
   addTokens(tokens: readonly string[], label?: string): this {
-    return this.#add(tokens, label, null);
-  }
-
-  /**
-   * Counts one document's tokens as {@link Tally.addTokens} does and writes each token's number
-   * (see {@link Tally.numberOf}) into `numbers`, which must hold at least `tokens.length`.
-   */
-  addNumbered(tokens: readonly string[], label: string | undefined, numbers: Int32Array): this {
-    return this.#add(tokens, label, numbers);
+    this.#begin(tokens.length);
+    for (const token of tokens) {
+      const n = this.#numbers.indexOf(token);
+      if (n >= 0) this.#countAgain(n);
+      else this.#countNew(token);
+    }
+    if (label !== undefined) addLabel(this.labels, label, 1, tokens.length);
+    return this;
   }
 
   /**
@@ -184,19 +183,6 @@ export class Tally {
   #countToken(spans: TokenSpans, k: number): number {
     const n = this.#numbers.indexOfToken(spans, k);
     return n >= 0 ? this.#countAgain(n) : this.#countNew(spans.tokenAt(k));
-  }
-
-  #add(tokens: readonly string[], label: string | undefined, numbers: Int32Array | null): this {
-    this.#begin(tokens.length);
-    const index = this.#numbers;
-    for (let k = 0; k < tokens.length; k++) {
-      const t = tokens[k] as string;
-      const n = index.indexOf(t);
-      const counted = n >= 0 ? this.#countAgain(n) : this.#countNew(t);
-      if (numbers !== null) numbers[k] = counted;
-    }
-    if (label !== undefined) addLabel(this.labels, label, 1, tokens.length);
-    return this;
   }
 
   /** Counts a new document of `tokens` tokens (its length); returns `tokens`. */
