@@ -52,7 +52,7 @@ function write(value: unknown, indent: string, out: string[]): void {
   }
   out.push('{');
   entries.forEach(([key, v], i) => {
-    out.push(`\n${inner}${JSON.stringify(key)}: `);
+    out.push(`\n${inner}${JSON.stringify(key)}:`);
     write(v, inner, out);
     if (i < entries.length - 1) out.push(',');
   });
@@ -60,9 +60,10 @@ function write(value: unknown, indent: string, out: string[]): void {
 }
 
 /**
- * The lexicon file's text: JSON, two-space indented, one token a line so diffs stay readable, and each
- * small object of plain values (rules, layout, shape, figures) on one line:
- * `"shape": {"length":96,"pad":"start","cut":"end"}`.
+ * The lexicon file's text: JSON, two-space indented, one token a line so diffs stay readable, each
+ * small object of plain values (rules, layout, shape, figures) on one line, and every member written
+ * `"name":value` with no space, so a member reads the same inside a one-line object and out of it:
+ * `"shape":{"length":96,"pad":"start","cut":"end"}`.
  * Browser-safe; `parseLexicon(serializeLexicon(x))` encodes exactly as `x`.
  */
 export function serializeLexicon(lexicon: Lexicon): string {

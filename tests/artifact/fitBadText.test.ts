@@ -15,7 +15,7 @@ describe('fit.badText', () => {
     expect(freeze(tally).fit?.badText).toBe('fail');
     for (const badText of ['fail', 'replace', 'skip'] as const) {
       const text = serializeLexicon(freeze(tally, { badText }));
-      expect(text).toContain(`"badText": "${badText}"`);
+      expect(text).toContain(`"badText":"${badText}"`);
       expect(parseLexicon(text).badText).toBe(badText);
     }
   });

@@ -472,7 +472,7 @@ describe('parseLexicon refuses one case of each kind, with this message', () => 
     ],
     // 10,000 levels of nesting, in a member and as the whole text.
     ['deep arrays in a member', () => replacedOnce(BASE_TEXTS[0]!, '"level":"word"', `"level": ${deepArrayText(10_000)}`), 'BAD_LEXICON', schemaMessage('encoding.rules.level', 'expected "word" or "char", got an array of 1 item')],
-    ['deep objects in a member', () => replacedOnce(BASE_TEXTS[0]!, '"formatVersion": 2', `"formatVersion": ${deepObjectText(10_000)}`), 'BAD_LEXICON', `${SOURCE} member formatVersion: formatVersion is an object with 1 member, not a format version (a whole number from 1); ${REBUILD}`],
+    ['deep objects in a member', () => replacedOnce(BASE_TEXTS[0]!, '"formatVersion":2', `"formatVersion": ${deepObjectText(10_000)}`), 'BAD_LEXICON', `${SOURCE} member formatVersion: formatVersion is an object with 1 member, not a format version (a whole number from 1); ${REBUILD}`],
     ['deep arrays as the whole text', () => deepArrayText(10_000), 'NOT_A_LEXICON', NOT_A_LEXICON],
     ['deep objects as the whole text', () => deepObjectText(10_000), 'NOT_A_LEXICON', NOT_A_LEXICON],
     // V8 (Node 20) parses nesting iteratively: even a million levels are read, then refused as no lexicon.

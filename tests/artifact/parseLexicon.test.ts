@@ -53,11 +53,15 @@ describe('parseLexicon', () => {
     expect(errorOf(`\ufeff\ufeff${text}`).code).toBe('NOT_JSON');
   });
 
-  it('writes one token a line and each small object of plain values on one line', () => {
+  // A member is written `"name":value` with no space, as in the one-line objects, so a member reads the
+  // same wherever it sits: a search for `"shape":{"length":6,…}` finds it in the file as written.
+  it('writes one token a line, each small object of plain values on one line, members as "name":value', () => {
     const lines = text.split('\n');
-    expect(lines).toContain('    "shape": {"length":6,"pad":"start","cut":"end"}');
-    expect(lines).toContain('    "rules": {"level":"word","unicode":"NFKC","case":"lower","drop":[],"collapse":[],"spaces":null,"tokenizer":"wink-tokenizer@5.3.0"},');
-    expect(lines).toContain('    "layout": {"oov":"first","reserved":0},');
+    expect(lines).toContain('    "shape":{"length":6,"pad":"start","cut":"end"}');
+    expect(lines).toContain('    "rules":{"level":"word","unicode":"NFKC","case":"lower","drop":[],"collapse":[],"spaces":null,"tokenizer":"wink-tokenizer@5.3.0"},');
+    expect(lines).toContain('    "layout":{"oov":"first","reserved":0},');
+    expect(lines).toContain('  "formatVersion":2,');
+    expect(text).not.toContain('": ');
     expect(lines).toContain('      "ferry",');
     expect(text.endsWith('\n}\n')).toBe(true);
     // The same document as JSON.stringify gives, only laid out differently.

@@ -29,6 +29,14 @@ describe('lexlock build', () => {
     expect(lex.fit?.capTie).toEqual({ cap: 3, count: 1, tokens: 7, kept: 2, left: 5, below: 1, above: 8 });
   });
 
+  // The issue's own check, word for word: the demo corpus built with a shape, then the text of the file
+  // searched for the shape as one string.
+  it('writes the shape as "shape":{"length":96,"pad":"start","cut":"end"} for --length 96 --pad start --cut end', async () => {
+    const r = await cli('build', 'corpora-demo/ferry-messages.csv', '--length', '96', '--pad', 'start', '--cut', 'end', '-o', tmp.path('lex.json'));
+    expect([r.code, r.stderr]).toEqual([0, '']);
+    expect(await readFile(tmp.path('lex.json'), 'utf8')).toContain('"shape":{"length":96,"pad":"start","cut":"end"}');
+  });
+
   it('refuses to overwrite without --force, and overwrites with it', async () => {
     await writeFile(tmp.path('m.csv'), CSV);
     await writeFile(tmp.path('lex.json'), 'old');

@@ -41,8 +41,8 @@ describe('lexlock verify', () => {
     ['not JSON', () => '{', /: not JSON \(/],
     ['not a lexicon', () => '{"a":1}', /not a lexlock lexicon/],
     ['a changed canary', (t) => t.replace('"timetable"', '"schedule"'), /member canaries\[2\]: canary "Timetable at/],
-    ['a newer version', (t) => t.replace('"formatVersion": 2', '"formatVersion": 3'), /lexicon format version 3 needs a newer lexlock/],
-    ['format version 1', (t) => t.replace('"formatVersion": 2', '"formatVersion": 1'), /member formatVersion: lexicon format version 1 was written by lexlock 0\.2\.0; this lexlock \(0\.2\.0\) reads version 2 only .*; rebuild it with this lexlock's build/],
+    ['a newer version', (t) => t.replace('"formatVersion":2', '"formatVersion":3'), /lexicon format version 3 needs a newer lexlock/],
+    ['format version 1', (t) => t.replace('"formatVersion":2', '"formatVersion":1'), /member formatVersion: lexicon format version 1 was written by lexlock 0\.2\.0; this lexlock \(0\.2\.0\) reads version 2 only .*; rebuild it with this lexlock's build/],
   ])('exits 1 on %s', async (_what, edit, message) => {
     await writeFile(tmp.path('lex.json'), edit(await readFile(tmp.path('lex.json'), 'utf8')));
     const r = await cli('verify', tmp.path('lex.json'));
