@@ -1,8 +1,6 @@
-import { loadTally } from '../files/loadTally.js';
+import { mergeTallyFiles } from '../files/mergeTallyFiles.js';
 import { withLocks } from '../files/outputLock.js';
-import { writeTallyFile } from '../files/saveTally.js';
 import { assertWritable } from '../files/refuseOverwrite.js';
-import { tallyFileMerge, type NamedTallyFile } from '../tally/tallyFileMerge.js';
 import { LexlockError } from '../LexlockError.js';
 import type { Io } from './Io.js';
 import { parseArgs, valueOf } from './parseArgs.js';
@@ -35,13 +33,9 @@ export async function merge(argv: readonly string[], io: Io): Promise<number> {
   const force = args.switches.has('force');
   return withLocks([output], async () => {
     await assertWritable(output, force);
-    const first = inputs[0] as string;
-    let merged: NamedTallyFile = { name: first, file: await loadTally(first) };
-    for (const path of inputs.slice(1)) {
-      merged = { name: merged.name, file: tallyFileMerge([merged, { name: path, file: await loadTally(path) }]) };
-    }
-    await writeTallyFile(output, merged.file);
-    io.stdout.write(describeTallyFile(output, merged.file));
+    // Streamed: one count line a part in memory, so parts of any size merge (mergeTallyFiles).
+    const merged = await mergeTallyFiles(inputs, output);
+    io.stdout.write(describeTallyFile(output, merged.file, merged.types));
     return 0;
   });
 }

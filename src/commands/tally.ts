@@ -40,13 +40,13 @@ export function assertTallyName(output: string): void {
   }
 }
 
-/** The summary lines tally and merge print about a tally file. */
-export function describeTallyFile(path: string, file: TallyFile): string {
+/** The summary lines tally and merge print about a tally file of `types` distinct tokens. */
+export function describeTallyFile(path: string, file: TallyFile, types: number = file.tally.types): string {
   const { tally } = file;
   const r = tally.rules;
   return `wrote ${path}\n${pairs([
     ['rules', `${r.level} level, ${r.unicode}, case ${r.case}, ${r.tokenizer}` + (r.drop.length > 0 ? `, drop ${r.drop.join(',')}` : '') + (r.collapse.length > 0 ? `, collapse ${r.collapse.join(',')}` : '')],
-    ['corpus', `${count(tally.documents)} documents, ${count(tally.tokens)} tokens, ${count(tally.types)} distinct`],
+    ['corpus', `${count(tally.documents)} documents, ${count(tally.tokens)} tokens, ${count(types)} distinct`],
     ['labels', tally.labels.size === 0 ? 'none' : `${tally.labels.size}`],
   ])}`;
 }

@@ -1,11 +1,12 @@
 import { inputError, isLexlockError, type Where } from '../LexlockError.js';
 import { describeIssue, memberPath } from '../artifact/describeIssue.js';
 import { withoutBom } from '../artifact/jsonFileLimit.js';
-import { TALLY_FORMAT, TALLY_FORMAT_VERSION, tallyFileSchema } from '../artifact/tallySchema.js';
+import { TALLY_FORMAT, TALLY_FORMAT_VERSION, tallyFileSchema, type TallyFileDocument } from '../artifact/tallySchema.js';
 import { resolveRules } from '../rules/TextRules.js';
 import { VERSION } from '../version.js';
 import { Tally } from './Tally.js';
 import { TALLY_SNIPPETS, type TallyFile } from './tallyFile.js';
+import { badTally, TallyCountsCheck } from './TallyCountsCheck.js';
 
 /** Options of {@link tallyFileParse}. */
 export interface TallyFileParseOptions {
@@ -24,7 +25,6 @@ const AGAIN = 'count the part again with lexlock tally';
  */
 export function tallyFileParse(input: string | object, options: TallyFileParseOptions = {}): TallyFile {
   const where: Where = options.source === undefined ? {} : { file: options.source };
-  const bad = (field: string, detail: string) => inputError('BAD_TALLY', { ...where, field }, `${detail}; ${AGAIN}`);
   let raw: unknown = input;
   if (typeof input === 'string') {
     try {
@@ -33,6 +33,32 @@ export function tallyFileParse(input: string | object, options: TallyFileParseOp
       throw inputError('NOT_JSON', where, `not JSON (${(e as Error).message}); pass a tally file written by lexlock tally or lexlock merge`);
     }
   }
+  const { file, doc } = tallyHeaderParse(raw, where);
+  if (doc.types !== doc.counts.length) throw badTally(where, 'types', `types is ${doc.types} but counts has ${doc.counts.length} entries`);
+  const check = new TallyCountsCheck(doc, where);
+  doc.counts.forEach(([token, n, df], i) => {
+    check.entry(token, n, df, `counts[${i}]`);
+    file.tally.addToken(token, n, df);
+  });
+  check.end();
+  return file;
+}
+
+/** A tally file's members other than `counts`, checked, and the schema's view of the whole document. */
+export interface TallyHeader {
+  /** The tally with its documents, tokens, lengths and labels, but no token counted; snippets; fields. */
+  file: TallyFile;
+  doc: TallyFileDocument;
+}
+
+/**
+ * Checks a parsed tally document as {@link tallyFileParse} does (format, version, schema, rules,
+ * lengths, labels, snippets), except for its `counts` entries, which the caller checks with
+ * {@link TallyCountsCheck}: the streaming merge parses the members before `counts` with an empty
+ * `counts`, then reads the entries one line at a time. Browser-safe.
+ */
+export function tallyHeaderParse(raw: unknown, where: Where): TallyHeader {
+  const bad = (field: string, detail: string) => badTally(where, field, detail);
   if (typeof raw !== 'object' || raw === null || Array.isArray(raw) || (raw as { format?: unknown }).format !== TALLY_FORMAT) {
     throw inputError('NOT_A_TALLY', where, `not a lexlock tally (no "format": "${TALLY_FORMAT}" member); pass a file written by lexlock tally or lexlock merge`);
   }
@@ -105,20 +131,6 @@ export function tallyFileParse(input: string | object, options: TallyFileParseOp
     tally.labels.set(label, { documents: n, tokens: t });
   });
 
-  if (doc.types !== doc.counts.length) throw bad('types', `types is ${doc.types} but counts has ${doc.counts.length} entries`);
-  let occurrences = 0;
-  let previous: string | undefined;
-  doc.counts.forEach(([token, n, df], i) => {
-    if (previous !== undefined && !(previous < token)) {
-      throw bad(`counts[${i}]`, `token ${JSON.stringify(token)} comes after ${JSON.stringify(previous)}; tokens must be distinct and in JavaScript string order`);
-    }
-    if (df > n) throw bad(`counts[${i}]`, `token ${JSON.stringify(token)} occurs ${n} times but in ${df} documents`);
-    if (df > doc.documents) throw bad(`counts[${i}]`, `token ${JSON.stringify(token)} occurs in ${df} documents but the tally has ${doc.documents}`);
-    previous = token;
-    occurrences += n;
-    tally.addToken(token, n, df);
-  });
-  if (occurrences !== doc.tokens) throw bad('counts', `the counts add up to ${occurrences} tokens but tokens is ${doc.tokens}`);
   if (doc.snippets.length > TALLY_SNIPPETS) throw bad('snippets', `${doc.snippets.length} snippets; a tally keeps at most ${TALLY_SNIPPETS}`);
-  return { tally, snippets: [...doc.snippets], fields: { text: doc.fields.text, label: doc.fields.label } };
+  return { file: { tally, snippets: [...doc.snippets], fields: { text: doc.fields.text, label: doc.fields.label } }, doc };
 }
