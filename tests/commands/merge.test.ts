@@ -1,4 +1,4 @@
-import { readFile, writeFile } from 'node:fs/promises';
+import { readdir, readFile, writeFile } from 'node:fs/promises';
 import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
@@ -91,6 +91,29 @@ describe('lexlock merge', () => {
       `lexlock merge: ${tmp.path('a.tally')} and ${tmp.path('c.tally')} were counted under different rules (unicode: "NFKC" in ${tmp.path('a.tally')}, "NFC" in ${tmp.path('c.tally')}); count every part with the same --unicode\n`,
     ]);
     await expect(readFile(tmp.path('all.tally'))).rejects.toThrow(/ENOENT/);
+  });
+
+  it('exits 1 naming the file and line of a part cut short, and leaves no output and no temporary file', async () => {
+    await writeFile(tmp.path('a.txt'), 'one two\nthree\n');
+    await ok('tally', tmp.path('a.txt'), '-o', tmp.path('a.tally'));
+    await ok('tally', tmp.path('a.txt'), '-o', tmp.path('b.tally'));
+    const lines = (await read('b.tally')).split('\n');
+    const cut = lines.indexOf('  "counts": [') + 2; // the line of the first count
+    await writeFile(tmp.path('b.tally'), `${lines.slice(0, cut).join('\n')}\n`);
+    const r = await cli('merge', tmp.path('a.tally'), tmp.path('b.tally'), '-o', tmp.path('all.tally'));
+    expect([r.code, r.stderr]).toEqual([
+      1,
+      `lexlock merge: ${tmp.path('b.tally')} line ${cut}: the file ends after this line, before "counts" and the file are closed (was it cut short?); count the part again with lexlock tally\n`,
+    ]);
+    expect((await readdir(tmp.dir)).sort()).toEqual(['a.tally', 'a.txt', 'b.tally']);
+  });
+
+  it('exits 1 on a part that does not exist, in the words loadTally uses', async () => {
+    await writeFile(tmp.path('a.txt'), 'one two\n');
+    await ok('tally', tmp.path('a.txt'), '-o', tmp.path('a.tally'));
+    const r = await cli('merge', tmp.path('a.tally'), tmp.path('none.tally'), '-o', tmp.path('all.tally'));
+    expect([r.code, r.stderr]).toEqual([1, `lexlock merge: ${tmp.path('none.tally')}: cannot read the tally (no such file); pass the path of a file written by lexlock tally or lexlock merge\n`]);
+    expect((await readdir(tmp.dir)).sort()).toEqual(['a.tally', 'a.txt']);
   });
 
   it('refuses to overwrite without --force', async () => {
