@@ -1,33 +1,43 @@
 import { createReadStream } from 'node:fs';
 import { LexlockError } from '../LexlockError.js';
 import { JSON_FILE_MOST_BYTES } from '../artifact/jsonFileLimit.js';
-import { readLines } from '../corpus/lines.js';
 import { mergeTallyLines, type MergedTallyHeader } from '../tally/mergeTallyLines.js';
 import { badTally } from '../tally/TallyCountsCheck.js';
 import { TALLY_COUNTS_CLOSE, TALLY_COUNTS_OPEN, tallyHeaderLines } from '../tally/tallyFileText.js';
 import { openAtomic, type AtomicFile } from './AtomicFile.js';
 
-/** The most bytes of one line of a tally file: a line is one string, so the longest string V8 makes. */
-const LINE_MOST_BYTES = JSON_FILE_MOST_BYTES;
+/** The most characters of one line of a tally file: a line is one string, so the longest string V8 makes. */
+const LINE_MOST_CHARS = JSON_FILE_MOST_BYTES;
+/** Bytes read from a part at a time: what each part holds besides its current entry. */
+const READ_BYTES = 1 << 16;
 
 /**
- * A tally file's lines in groups (about 64 KiB each), decoded as UTF-8, read as they are needed. A
- * file that cannot be read is `IO` in loadTally's words; a line past {@link LINE_MOST_BYTES}, `BAD_TALLY`.
+ * A tally file's lines (without their line feeds) in groups, one group for each 64 KiB read, decoded
+ * as UTF-8 (a character split between two reads is put together first). The lines are slices of the
+ * text read, so a part holds one read's text and no object for each line. A file that cannot be read
+ * is `IO` in loadTally's words; a line longer than one string can be, `BAD_TALLY`.
  */
 export async function* tallyFileLineGroups(path: string): AsyncGenerator<string[], void, undefined> {
+  let rest = '';
+  let line = 1;
   try {
-    for await (const group of readLines(createReadStream(path), { maxBytes: LINE_MOST_BYTES, file: path })) {
-      yield group.map((l) => l.bytes.toString('utf8'));
+    for await (const chunk of createReadStream(path, { encoding: 'utf8', highWaterMark: READ_BYTES })) {
+      const text = chunk as string;
+      if (rest.length + text.length > LINE_MOST_CHARS) {
+        throw badTally({ file: path, line }, 'counts', `this line has more than ${LINE_MOST_CHARS.toLocaleString('en-US')} characters, more than one string holds`);
+      }
+      const lines = (rest + text).split('\n');
+      rest = lines.pop() as string;
+      line += lines.length;
+      if (lines.length > 0) yield lines;
     }
   } catch (e) {
-    if (e instanceof LexlockError) {
-      if (e.code !== 'RECORD_TOO_LARGE') throw e;
-      throw badTally({ file: path, line: e.where.line ?? 0 }, 'counts', `this line has more than ${LINE_MOST_BYTES.toLocaleString('en-US')} bytes, more than one string holds`);
-    }
+    if (e instanceof LexlockError) throw e;
     const err = e as NodeJS.ErrnoException;
     const what = err.code === 'ENOENT' ? 'no such file' : err.code === 'EISDIR' ? 'is a folder, not a tally file' : err.message;
     throw new LexlockError('IO', `${path}: cannot read the tally (${what}); pass the path of a file written by lexlock tally or lexlock merge`, { file: path });
   }
+  if (rest !== '') yield [rest];
 }
 
 /**

@@ -103,7 +103,7 @@ export class TallyPartReader {
       const line = await this.#nextLine();
       if (line === null) {
         if (this.#expecting === 'nothing') return false;
-        throw this.#bad(`the file ends before "counts" and the file are closed (was it cut short?)`);
+        throw this.#bad(`the file ends after this line, before "counts" and the file are closed (was it cut short?)`);
       }
       const text = line.trim();
       switch (this.#expecting) {

@@ -3,6 +3,9 @@ import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
 import { parseLexicon } from '../../src/artifact/parseLexicon.js';
+import { loadTally } from '../../src/files/loadTally.js';
+import { tallyFileMerge } from '../../src/tally/tallyFileMerge.js';
+import { tallyFileText } from '../../src/tally/tallyFileText.js';
 import { cli, freshFolderEachTest } from '../helpers/cli.js';
 
 const FERRY = join(dirname(fileURLToPath(import.meta.url)), '..', '..', 'corpora-demo', 'ferry-messages.csv');
@@ -78,6 +81,19 @@ describe('lexlock merge', () => {
     expect(all.documents).toBe(5);
     // Hand-counted. wink-tokenizer splits __proto__ into _ _ proto _ _; constructor stays one token.
     expect(all.counts).toEqual([['_', 4, 1], ['again', 3, 2], ['and', 1, 1], ['constructor', 1, 1], ['ferry', 2, 2], ['late', 2, 2], ['proto', 1, 1], ['the', 2, 2]]);
+  });
+
+  it('writes the bytes of the in-memory merge for parts read in many 64 KiB pieces, characters of 2 to 4 bytes split between reads', async () => {
+    const words = ['été', '東京', '😀ferry', 'zürich', 'ωμέγα', 'late'];
+    for (const [p, offset] of [['a', 0], ['b', 7]] as const) {
+      const lines = Array.from({ length: 4000 }, (_, i) => `${words[(i + offset) % words.length]}${i % 977} ${words[i % 5]}${(i * 7 + offset) % 1013}`);
+      await writeFile(tmp.path(`${p}.txt`), `${lines.join('\n')}\n`);
+      await ok('tally', tmp.path(`${p}.txt`), '-o', tmp.path(`${p}.tally`));
+    }
+    expect((await readFile(tmp.path('a.tally'))).length).toBeGreaterThan(3 * 65536);
+    await ok('merge', tmp.path('a.tally'), tmp.path('b.tally'), '-o', tmp.path('all.tally'));
+    const inMemory = tallyFileText(tallyFileMerge([{ name: 'a', file: await loadTally(tmp.path('a.tally')) }, { name: 'b', file: await loadTally(tmp.path('b.tally')) }]));
+    expect(await read('all.tally')).toBe(inMemory);
   });
 
   it('exits 1 naming both files and the rule when the parts were counted under different rules', async () => {
