@@ -7,6 +7,7 @@ import { loadTally } from '../../src/files/loadTally.js';
 import { tallyFileMerge } from '../../src/tally/tallyFileMerge.js';
 import { tallyFileText } from '../../src/tally/tallyFileText.js';
 import { cli, freshFolderEachTest } from '../helpers/cli.js';
+import { letters } from '../helpers/generatedCorpora.js';
 
 const FERRY = join(dirname(fileURLToPath(import.meta.url)), '..', '..', 'corpora-demo', 'ferry-messages.csv');
 
@@ -84,9 +85,9 @@ describe('lexlock merge', () => {
   });
 
   it('writes the bytes of the in-memory merge for parts read in many 64 KiB pieces, characters of 2 to 4 bytes split between reads', async () => {
-    const words = ['été', '東京', '😀ferry', 'zürich', 'ωμέγα', 'late'];
+    const words = ['été', '東京', 'ferry😀', 'zürich', 'ωμέγα', 'late'];
     for (const [p, offset] of [['a', 0], ['b', 7]] as const) {
-      const lines = Array.from({ length: 4000 }, (_, i) => `${words[(i + offset) % words.length]}${i % 977} ${words[i % 5]}${(i * 7 + offset) % 1013}`);
+      const lines = Array.from({ length: 6000 }, (_, i) => `${words[(i + offset) % words.length]}${letters(i % 4001)} ${letters((i * 7 + offset) % 3011)}${words[i % 5]}`);
       await writeFile(tmp.path(`${p}.txt`), `${lines.join('\n')}\n`);
       await ok('tally', tmp.path(`${p}.txt`), '-o', tmp.path(`${p}.tally`));
     }
