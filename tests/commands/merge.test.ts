@@ -85,9 +85,11 @@ describe('lexlock merge', () => {
   });
 
   it('writes the bytes of the in-memory merge for parts read in many 64 KiB pieces, characters of 2 to 4 bytes split between reads', async () => {
-    const words = ['été', '東京', 'ferry😀', 'zürich', 'ωμέγα', 'late'];
+    // Mostly 2-byte letters (Greek), some 3- and 4-byte ones: a 64 KiB read ends inside a character.
+    const greek = (n: number) => [...letters(n)].map((c) => String.fromCharCode(0x3b1 + c.charCodeAt(0) - 97)).join('');
+    const words = ['μεγάλοπλοίο', '東京', 'πορθμείο😀', 'καθυστέρηση', 'ωμέγα', 'εισιτήριο'];
     for (const [p, offset] of [['a', 0], ['b', 7]] as const) {
-      const lines = Array.from({ length: 6000 }, (_, i) => `${words[(i + offset) % words.length]}${letters(i % 4001)} ${letters((i * 7 + offset) % 3011)}${words[i % 5]}`);
+      const lines = Array.from({ length: 6000 }, (_, i) => `${words[(i + offset) % words.length]}${greek(i % 4001)} ${greek((i * 7 + offset) % 3011)}${words[i % 5]}`);
       await writeFile(tmp.path(`${p}.txt`), `${lines.join('\n')}\n`);
       await ok('tally', tmp.path(`${p}.txt`), '-o', tmp.path(`${p}.tally`));
     }
