@@ -63,8 +63,17 @@ export class TallyPartReader {
 
   /** Reads and checks the members before `counts`; the entries follow with {@link TallyPartReader.next}. */
   static async open(source: TallyLines): Promise<TallyPartReader> {
-    const where: Where = { file: source.name };
     const lines = source.lines[Symbol.asyncIterator]();
+    try {
+      return await TallyPartReader.#open(source.name, lines);
+    } catch (e) {
+      await lines.return?.();
+      throw e;
+    }
+  }
+
+  static async #open(name: string, lines: AsyncIterator<readonly string[]>): Promise<TallyPartReader> {
+    const where: Where = { file: name };
     const head: string[] = [];
     let chars = 0;
     let line = 0;
@@ -77,7 +86,7 @@ export class TallyPartReader {
         line += 1;
         if (text.trim() === COUNTS_OPEN) {
           const header = tallyHeaderParse(parseHead(head, where), where);
-          return new TallyPartReader(source.name, header, lines, group, i + 1, line);
+          return new TallyPartReader(name, header, lines, group, i + 1, line);
         }
         head.push(text);
         chars += text.length + 1;
@@ -95,6 +104,11 @@ export class TallyPartReader {
     }
     tallyHeaderParse(raw, where);
     throw badTally(where, 'counts', `"counts" does not open on a line of its own; ${LAYOUT}`);
+  }
+
+  /** Stops reading the lines before their end (their source closes its file), as after a failure elsewhere. */
+  async close(): Promise<void> {
+    await this.#lines.return?.();
   }
 
   /** Moves to the next entry (true), or checks the end of the file and the totals (false). */

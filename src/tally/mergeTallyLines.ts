@@ -29,7 +29,16 @@ const CHUNK_CHARS = 1 << 16;
 export async function mergeTallyLines(sources: readonly TallyLines[], write: (text: string) => void | Promise<void>): Promise<MergedTallyHeader> {
   if (sources.length === 0) throw new LexlockError('BAD_OPTION', 'no tally files to merge; pass at least one', {});
   const parts: TallyPartReader[] = [];
-  for (const source of sources) parts.push(await TallyPartReader.open(source));
+  try {
+    for (const source of sources) parts.push(await TallyPartReader.open(source));
+    return await mergeParts(parts, write);
+  } finally {
+    // After a failure the other parts' files are still open: close them (a no-op for finished ones).
+    await Promise.all(parts.map((p) => p.close()));
+  }
+}
+
+async function mergeParts(parts: readonly TallyPartReader[], write: (text: string) => void | Promise<void>): Promise<MergedTallyHeader> {
   const merged = tallyFileMerge(parts.map((p) => ({ name: p.name, file: p.header.file })));
 
   const heap: TallyPartReader[] = [];

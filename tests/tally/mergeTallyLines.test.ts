@@ -138,6 +138,25 @@ describe('mergeTallyLines', () => {
     expect(await failure([good, source('p.tally', text(), 2)])).toEqual([code, message]);
   });
 
+  it('stops reading every part when one is broken (each source is closed: its file would be)', async () => {
+    const closed: string[] = [];
+    const watched = (name: string, text: string): TallyLines => ({
+      name,
+      lines: (async function* () {
+        try {
+          yield* grouped(text, 1);
+        } finally {
+          closed.push(name);
+        }
+      })(),
+    });
+    const big = tallyFileText(part([{ text: 'a b c d e f g h i j k l m n o p', label: undefined }]));
+    const broken = valid.replace('    ["b",2,1]', '    ["b",2,1');
+    const [code] = await failure([watched('big.tally', big), watched('p.tally', broken), watched('late.tally', big)]);
+    expect(code).toBe('BAD_TALLY');
+    expect(closed.sort()).toEqual(['big.tally', 'late.tally', 'p.tally']);
+  });
+
   it('reads a file that starts with a byte order mark', async () => {
     expect(await streamed([source('p.tally', `\uFEFF${valid}`)])).toBe(valid);
   });
