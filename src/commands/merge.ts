@@ -10,6 +10,7 @@ import { assertTallyName, describeTallyFile } from './tally.js';
 export const MERGE_HELP = `lexlock merge <part.tally>... -o <all.tally> [--force]
 
 Adds up tally files counted under the same rules into one; the order and grouping do not matter.
+Reads the parts line by line, one count of each at a time, so they may be of any size.
 
   -o, --output FILE     where to write the merged tally; must end in .tally (refused if it exists, unless --force)
   --force               overwrite an existing tally file
