@@ -42,10 +42,24 @@ export async function* tallyFileLineGroups(path: string): AsyncGenerator<string[
     }
   } catch (e) {
     if (e instanceof LexlockError) throw e;
-    const err = e as NodeJS.ErrnoException;
-    const what = err.code === 'ENOENT' ? 'no such file' : err.code === 'EISDIR' ? 'is a folder, not a tally file' : err.message;
-    throw new LexlockError('IO', `${path}: cannot read the tally (${what}); pass the path of a file written by lexlock tally or lexlock merge`, { file: path });
+    throw tallyReadError(path, e as NodeJS.ErrnoException);
   }
   const last = pieces.join('');
   if (last !== '') yield [last];
+}
+
+/**
+ * `IO` for a part that cannot be read, in loadTally's words; when the process has too many files open
+ * (a merge holds every part open), what to do about that instead.
+ */
+export function tallyReadError(path: string, err: NodeJS.ErrnoException): LexlockError {
+  if (err.code === 'EMFILE' || err.code === 'ENFILE') {
+    return new LexlockError(
+      'IO',
+      `${path}: cannot read the tally (too many files open: merge keeps every part open); merge fewer parts at once and merge the results (any grouping gives the same file), or raise the limit of open files (ulimit -n)`,
+      { file: path },
+    );
+  }
+  const what = err.code === 'ENOENT' ? 'no such file' : err.code === 'EISDIR' ? 'is a folder, not a tally file' : err.message;
+  return new LexlockError('IO', `${path}: cannot read the tally (${what}); pass the path of a file written by lexlock tally or lexlock merge`, { file: path });
 }

@@ -1,7 +1,7 @@
 import { writeFile } from 'node:fs/promises';
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { tallyFileLineGroups } from '../../src/files/tallyFileLineGroups.js';
+import { tallyFileLineGroups, tallyReadError } from '../../src/files/tallyFileLineGroups.js';
 import { caughtError } from '../helpers/caughtError.js';
 import { freshFolderEachTest } from '../helpers/tempFolder.js';
 
@@ -55,5 +55,14 @@ describe('tallyFileLineGroups', () => {
     const path = tmp.path(name);
     const error = await caughtError(() => linesOf(path));
     expect([error.code, error.message]).toEqual(['IO', message(path)]);
+  });
+
+  it('says what to do when too many files are open (a merge keeps every part open)', () => {
+    const err = Object.assign(new Error("EMFILE: too many open files, open 'p36.tally'"), { code: 'EMFILE' });
+    const error = tallyReadError('p36.tally', err);
+    expect([error.code, error.message]).toEqual([
+      'IO',
+      'p36.tally: cannot read the tally (too many files open: merge keeps every part open); merge fewer parts at once and merge the results (any grouping gives the same file), or raise the limit of open files (ulimit -n)',
+    ]);
   });
 });
