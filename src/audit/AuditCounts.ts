@@ -5,6 +5,7 @@ import { Tally, type TallyCounts } from '../tally/Tally.js';
 import { COUNT, DOCUMENTS, TokenFigures } from '../tally/TokenFigures.js';
 import type { LabelAudit } from './CoverageReport.js';
 import { OovPositions, type OovPositionCounts } from './OovPositions.js';
+import type { PageCounts, PageParts } from './explore/PageCounts.js';
 
 /** Where {@link AuditCounts.add} leaves a document's tokens (reused: one document at a time). */
 const scanned = new TokenSpans();
@@ -19,13 +20,15 @@ export interface AuditParts {
   paddingTokens: number;
   /** Where documents have their OOV tokens, from either end (for the OOV rate of what rows keep). */
   oovPositions: OovPositionCounts;
+  /** What the report page's controls need (when asked for). */
+  page?: PageParts;
 }
 
 /**
  * What an audit counts, document by document: the corpus tally, OOV and truncation overall and per
  * label. Everything adds up, so counts made over parts of a corpus (threads) merge to the same.
  */
-export class AuditCounts implements Omit<AuditParts, 'tally'> {
+export class AuditCounts implements Omit<AuditParts, 'tally' | 'page'> {
   /** Every document's totals, and the occurrences of tokens outside the lexicon (see {@link AuditCounts.tally}). */
   readonly #tally: Tally;
   /**
@@ -44,10 +47,13 @@ export class AuditCounts implements Omit<AuditParts, 'tally'> {
   paddingTokens = 0;
   private readonly lexicon: Lexicon;
   private readonly length: number | null;
+  /** Occurrences by rank and lengths per label, for the report page's controls; null when not asked for. */
+  readonly page: PageCounts | null;
 
-  constructor(lexicon: Lexicon, length: number | null) {
+  constructor(lexicon: Lexicon, length: number | null, page: PageCounts | null = null) {
     this.lexicon = lexicon;
     this.length = length;
+    this.page = page;
     this.#tally = new Tally(lexicon.rules);
     this.#known = new TokenFigures(lexicon.size);
   }
@@ -91,6 +97,7 @@ export class AuditCounts implements Omit<AuditParts, 'tally'> {
       }
       known.occur(id, document);
     }
+    this.page?.add(scanned, ids, this.lexicon, label);
     this.#tally.addPickedSpans(scanned, label, oovPlaces, oov);
     this.oovTokens += oov;
     if (oov > 0) this.oovPositions.addPlaces(oovPlaces, oov, n);
@@ -124,6 +131,7 @@ export class AuditCounts implements Omit<AuditParts, 'tally'> {
     this.droppedTokens += parts.droppedTokens;
     this.paddingTokens += parts.paddingTokens;
     this.oovPositions.merge(parts.oovPositions);
+    if (parts.page !== undefined) this.page?.merge(parts.page);
     return this;
   }
 
@@ -137,6 +145,7 @@ export class AuditCounts implements Omit<AuditParts, 'tally'> {
       droppedTokens: this.droppedTokens,
       paddingTokens: this.paddingTokens,
       oovPositions: { fromStart: this.oovPositions.fromStart, fromEnd: this.oovPositions.fromEnd },
+      ...(this.page === null ? {} : { page: this.page.parts() }),
     };
   }
 
