@@ -46,7 +46,7 @@ export function labelSection(report: CoverageReport): string {
     `Solid bars: OOV rate; striped bars: truncated documents (${cut}).`;
   const table = htmlTable(
     'Every label',
-    [{ heading: 'label', code: true }, { heading: 'documents', numeric: true }, { heading: 'tokens', numeric: true }, { heading: 'OOV rate', numeric: true }, { heading: 'truncated documents', numeric: true }],
+    [{ heading: 'label', code: true }, { heading: 'documents', numeric: true }, { heading: 'tokens', numeric: true }, { heading: 'OOV rate', numeric: true, live: 'label-oov' }, { heading: 'truncated documents', numeric: true, live: 'label-truncated' }],
     entries.map(([name, a]) => [name, formatCount(a.documents), formatCount(a.tokens), formatPercent(shareOf(a.oovTokens, a.tokens)), formatPercent(shareOf(a.truncatedDocuments, a.documents))]),
   );
   return `<section id="labels">${heading}${chartFigure(title, svg, caption)}${table}</section>`;
