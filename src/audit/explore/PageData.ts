@@ -31,8 +31,11 @@ export interface PageData {
   labels: PageSeries[];
   /** Labels left out of the live figures (their table rows show the audited figures only). */
   labelsLeftOut: number;
-  /** The `lexlock build` arguments besides `--cap` and `--length`, in order: corpus first. */
-  build: string[];
+  /**
+   * The matching `lexlock build` line's words (each quoted for a POSIX shell where it needs it): `head`
+   * before `--cap X --length Y --pad P --cut C` (the corpus and `-o`), `tail` after (text rules, fields).
+   */
+  build: { head: string[]; tail: string[] };
   /** OOV tokens by count band, when the most frequent OOV tokens all share one count; else null. */
   oovBands: OovBand[] | null;
 }

@@ -28,7 +28,7 @@ function byLength(lengths: ReadonlyMap<number, number>, index: StopIndex): { doc
 export function pageDataOf(
   counts: AuditCounts,
   report: CoverageReport,
-  how: { lexicon: Lexicon; shape: Shape | null; build: string[]; ranking: PageData['ranking'] },
+  how: { lexicon: Lexicon; shape: Shape | null; build: PageData['build']; ranking: PageData['ranking'] },
 ): PageData {
   const { lexicon, shape, build, ranking } = how;
   const page = counts.page;

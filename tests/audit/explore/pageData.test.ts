@@ -53,7 +53,7 @@ async function pageFor(docs: readonly Doc[], cap: number, length: number | null,
   const grid = stopGrid(ranked, points, [Math.min(cap, ranked)]);
   const counts = await auditCountsOnThreads(docs, audited, { page: { grid, ranking } });
   const report = auditReport(counts, audited);
-  const data = pageDataOf(counts, report, { lexicon: audited, shape: audited.shape, build: ['corpus.csv'], ranking: 'corpus' });
+  const data = pageDataOf(counts, report, { lexicon: audited, shape: audited.shape, build: { head: ['corpus.csv'], tail: [] }, ranking: 'corpus' });
   return { tally, data, minCount };
 }
 
@@ -135,7 +135,7 @@ describe('page data', () => {
     const grid = capGrid(ranking.encoding.tokens.length, 5, 3);
     const one = await auditCountsOnThreads(docs, audited, { page: { grid, ranking }, threads: 1 });
     const two = await auditCountsOnThreads(docs, audited, { page: { grid, ranking }, threads: 2 });
-    const dataOf = (c: typeof one) => pageDataOf(c, auditReport(c, audited), { lexicon: audited, shape: { length: 3, pad: 'end', cut: 'end' }, build: [], ranking: 'corpus' });
+    const dataOf = (c: typeof one) => pageDataOf(c, auditReport(c, audited), { lexicon: audited, shape: { length: 3, pad: 'end', cut: 'end' }, build: { head: [], tail: [] }, ranking: 'corpus' });
     expect(dataOf(two)).toEqual(dataOf(one));
   });
 });
