@@ -10,8 +10,10 @@ import { htmlTable } from './htmlTable.js';
 import { note } from './note.js';
 import { sortedEntries } from './sortedEntries.js';
 
-/** The chart shows at most this many labels (those with the most documents); the table shows all. */
+/** The chart shows at most this many labels (those with the most documents). */
 export const MAX_CHART_LABELS = 30;
+/** The table shows at most this many (those with the most documents), so the page's size stays bounded. */
+export const MAX_TABLE_LABELS = 500;
 
 /** OOV rate and truncated-document share per label, side by side, and a table of every label. */
 export function labelSection(report: CoverageReport): string {
@@ -42,12 +44,18 @@ export function labelSection(report: CoverageReport): string {
     tickFormat: (v) => `${formatTick(v)}${UNIT_SPACE}%`,
   });
   const caption =
-    (entries.length > shown.length ? `Showing the ${formatCount(shown.length)} labels with the most documents of ${formatCount(entries.length)}; the table lists all. ` : '') +
+    (entries.length > shown.length
+      ? `Showing the ${formatCount(shown.length)} labels with the most documents of ${formatCount(entries.length)}; the table lists ${entries.length > MAX_TABLE_LABELS ? `the ${formatCount(MAX_TABLE_LABELS)} with the most` : 'all'}. `
+      : '') +
     `Solid bars: OOV rate; striped bars: truncated documents (${cut}).`;
+  const listed =
+    entries.length <= MAX_TABLE_LABELS
+      ? entries
+      : [...entries].sort((a, b) => b[1].documents - a[1].documents).slice(0, MAX_TABLE_LABELS).sort((a, b) => (a[0] < b[0] ? -1 : 1));
   const table = htmlTable(
-    'Every label',
+    listed.length === entries.length ? 'Every label' : `The ${formatCount(listed.length)} labels with the most documents, of ${formatCount(entries.length)}`,
     [{ heading: 'label', code: true }, { heading: 'documents', numeric: true }, { heading: 'tokens', numeric: true }, { heading: 'OOV rate', numeric: true, live: 'label-oov' }, { heading: 'truncated documents', numeric: true, live: 'label-truncated' }],
-    entries.map(([name, a]) => [name, formatCount(a.documents), formatCount(a.tokens), formatPercent(shareOf(a.oovTokens, a.tokens)), formatPercent(shareOf(a.truncatedDocuments, a.documents))]),
+    listed.map(([name, a]) => [name, formatCount(a.documents), formatCount(a.tokens), formatPercent(shareOf(a.oovTokens, a.tokens)), formatPercent(shareOf(a.truncatedDocuments, a.documents))]),
   );
   return `<section id="labels">${heading}${chartFigure(title, svg, caption)}${table}</section>`;
 }
