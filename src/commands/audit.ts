@@ -14,6 +14,7 @@ import { auditCountsOnThreads, type PageRequest } from '../pipeline/auditOnThrea
 import { auditReport } from '../audit/auditCorpus.js';
 import { capGrid } from '../audit/explore/pageBudget.js';
 import { pageDataOf } from '../audit/explore/pageDataOf.js';
+import { rankingLexicon } from '../audit/explore/rankingLexicon.js';
 import { buildWords } from './buildWords.js';
 import { tallyCorpus } from '../pipeline/tallyCorpus.js';
 import { VERSION } from '../version.js';
@@ -148,7 +149,7 @@ async function auditHolding(context: {
       const minCount = wholeNumberFlag(args, 'min-count', 1) ?? 1;
       lexicon = freeze(tally, { cap: cap ?? null, minCount, shape: flagShape });
       if (reportPath !== undefined) {
-        const ranking = freeze(tally, { cap: null, minCount, shape: flagShape });
+        const ranking = rankingLexicon(tally, minCount, lexicon);
         page = { grid: capGrid(ranking.encoding.tokens.length, cap ?? 0, tally.labels.size), ranking };
       }
     } finally {

@@ -8,6 +8,7 @@ import { describe, expect, it } from 'vitest';
 import { figuresAt } from '../../../src/audit/explore/figuresAt.js';
 import { capGrid } from '../../../src/audit/explore/pageBudget.js';
 import { pageDataOf } from '../../../src/audit/explore/pageDataOf.js';
+import { rankingLexicon } from '../../../src/audit/explore/rankingLexicon.js';
 import type { PageData } from '../../../src/audit/explore/PageData.js';
 import { stopGrid, stopsOf, StopIndex } from '../../../src/audit/explore/StopGrid.js';
 import { auditReport } from '../../../src/audit/auditCorpus.js';
@@ -47,8 +48,10 @@ async function pageFor(docs: readonly Doc[], cap: number, length: number | null,
   const rules = resolveRules();
   const tally = new Tally(rules);
   for (const d of docs) tally.add(d);
-  const ranking = freeze(tally, { cap: null, minCount });
   const audited = freeze(tally, { cap, minCount, shape: length === null ? null : { length, pad: 'end', cut: 'end' } });
+  const ranking = rankingLexicon(tally, minCount, audited);
+  // The ranking is freeze's order: a lexicon frozen with no cap has the same tokens.
+  expect(ranking.encoding.tokens).toEqual(freeze(tally, { cap: null, minCount }).encoding.tokens);
   const ranked = ranking.encoding.tokens.length;
   const grid = stopGrid(ranked, points, [Math.min(cap, ranked)]);
   const counts = await auditCountsOnThreads(docs, audited, { page: { grid, ranking } });
@@ -130,8 +133,8 @@ describe('page data', () => {
     const rules = resolveRules();
     const tally = new Tally(rules);
     for (const d of docs) tally.add(d);
-    const ranking = freeze(tally, { cap: null });
     const audited = freeze(tally, { cap: 5 });
+    const ranking = rankingLexicon(tally, 1, audited);
     const grid = capGrid(ranking.encoding.tokens.length, 5, 3);
     const one = await auditCountsOnThreads(docs, audited, { page: { grid, ranking }, threads: 1 });
     const two = await auditCountsOnThreads(docs, audited, { page: { grid, ranking }, threads: 2 });

@@ -6,6 +6,7 @@ import { describe, expect, it } from 'vitest';
 import { auditReport } from '../../../src/audit/auditCorpus.js';
 import { CAP_FIGURES, LENGTH_FIGURES, LIVE_LABELS, PAGE_BYTES, capGrid } from '../../../src/audit/explore/pageBudget.js';
 import { pageDataOf } from '../../../src/audit/explore/pageDataOf.js';
+import { rankingLexicon } from '../../../src/audit/explore/rankingLexicon.js';
 import { stopsOf } from '../../../src/audit/explore/StopGrid.js';
 import { renderReport } from '../../../src/audit/report/renderReport.js';
 import { freeze } from '../../../src/lexicon/freeze.js';
@@ -36,8 +37,8 @@ describe('the report page size', () => {
     const tally = new Tally(resolveRules());
     for (const d of corpus()) tally.add(d);
     expect(tally.types).toBeGreaterThanOrEqual(TYPES);
-    const ranking = freeze(tally, { cap: null });
     const lexicon = freeze(tally, { cap: 30_000, shape: { length: 64, pad: 'end', cut: 'end' } });
+    const ranking = rankingLexicon(tally, 1, lexicon);
     const grid = capGrid(ranking.encoding.tokens.length, 30_000, tally.labels.size);
     const counts = await auditCountsOnThreads(corpus(), lexicon, { page: { grid, ranking } });
     const report = auditReport(counts, lexicon);

@@ -77,6 +77,26 @@ function place(scale: string, value: number): number {
   return c + t * (d - c);
 }
 
+/** Chart texts that stick out of their chart or overlap another (as report.browser.test.ts checks the static page). */
+async function textProblems(page: Page): Promise<string[]> {
+  return page.locator('svg.chart').evaluateAll((svgs) => {
+    const found: string[] = [];
+    for (const svg of svgs) {
+      const frame = svg.getBoundingClientRect();
+      const texts = Array.from(svg.querySelectorAll('text')).map((t) => ({ text: t.textContent ?? '', box: t.getBoundingClientRect() }));
+      texts.forEach(({ text, box }, i) => {
+        if (box.left < frame.left - 0.5 || box.right > frame.right + 0.5 || box.top < frame.top - 0.5 || box.bottom > frame.bottom + 0.5) found.push(`${svg.id}: "${text}" sticks out of the chart`);
+        for (const other of texts.slice(i + 1)) {
+          const w = Math.min(box.right, other.box.right) - Math.max(box.left, other.box.left);
+          const h = Math.min(box.bottom, other.box.bottom) - Math.max(box.top, other.box.top);
+          if (w > 1 && h > 1) found.push(`${svg.id}: "${text}" overlaps "${other.text}"`);
+        }
+      });
+    }
+    return found;
+  });
+}
+
 /** Sets a control by typing into its number box. */
 async function typeInto(page: Page, id: string, value: number): Promise<void> {
   await page.locator(`#${id}-number`).fill(String(value));
@@ -193,6 +213,7 @@ describe('the report page controls in Chromium', () => {
       expect(marker.at).toBeCloseTo(place(marker.scale, cap), 1);
       const lengthMarker = await markerX(page, 'length-marker');
       expect(lengthMarker.at).toBeCloseTo(place(lengthMarker.scale, length + 0.5), 1);
+      expect(await textProblems(page), `cap ${cap}, length ${length}`).toEqual([]);
     }
     const after = await markerX(page, 'cap-marker');
     expect(Math.abs(after.at - before.at)).toBeGreaterThan(20);
