@@ -50,7 +50,7 @@ export function renderReport(report: CoverageReport, context: ReportContext, pag
     coverageSection(report),
     lengthSection(report),
     windowSection(report),
-    labelSection(report),
+    labelSection(report, page),
     topOovSection(report, page?.oovBands ?? null),
     report.drift === undefined ? '' : driftSection(report.drift),
   ];

@@ -18,6 +18,9 @@ import { renderReport } from '../../../src/audit/report/renderReport.js';
 import { shareOf } from '../../../src/audit/report/shareOf.js';
 import { CHROMIUM, CHROMIUM_ARGS, chromiumMissing, serveFiles } from '../../helpers/chromium.js';
 import { cli } from '../../helpers/cli.js';
+import { plainCsv } from '../../helpers/plainCsv.js';
+import { resolveRules } from '../../../src/rules/TextRules.js';
+import { tokenize } from '../../../src/rules/tokenize.js';
 
 const MISSING = chromiumMissing("the report controls' browser test");
 const DEMO = join(import.meta.dirname, '../../../corpora-demo/ferry-messages.csv');
@@ -95,6 +98,30 @@ async function textProblems(page: Page): Promise<string[]> {
     }
     return found;
   });
+}
+
+/**
+ * Each label's dropped tokens and padding share at a length, which the JSON report does not have:
+ * recounted from the demo corpus read by a plain CSV reader and tokenized under the default rules.
+ */
+async function labelRowsAt(length: number): Promise<Record<string, string>> {
+  const [header, ...rows] = plainCsv(await readFile(DEMO, 'utf8'));
+  expect(header).toEqual(['id', 'text', 'topic', 'sentiment']);
+  const byLabel = new Map<string, number[]>();
+  for (const [, text, topic] of rows) byLabel.set(topic as string, [...(byLabel.get(topic as string) ?? []), tokenize(text as string, resolveRules()).length]);
+  const out: Record<string, string> = {};
+  for (const [label, lengths] of byLabel) {
+    out[`label-dropped:${label}`] = formatCount(lengths.reduce((sum, n) => sum + Math.max(0, n - length), 0));
+    out[`label-padding:${label}`] = formatPercent(shareOf(lengths.reduce((sum, n) => sum + Math.max(0, length - n), 0), lengths.length * length));
+  }
+  return out;
+}
+
+/** The figures of a page split into those a static page of the JSON report has, and the per-label dropped and padding ones. */
+function split(figures: Record<string, string>): [Record<string, string>, Record<string, string>] {
+  const extra = Object.entries(figures).filter(([k]) => k.startsWith('label-dropped:') || k.startsWith('label-padding:'));
+  const rest = Object.entries(figures).filter(([k]) => !(k.startsWith('label-dropped:') || k.startsWith('label-padding:')));
+  return [Object.fromEntries(rest), Object.fromEntries(extra)];
 }
 
 /** Sets a control by typing into its number box. */
@@ -197,8 +224,9 @@ describe('the report page controls in Chromium', () => {
         await arrowTo(page, 'length', length);
       }
       const json = await audited('--cap', String(cap), '--length', String(length));
-      const shown = await liveFigures(page);
+      const [shown, labelRows] = split(await liveFigures(page));
       expect(shown, `cap ${cap}, length ${length}`).toEqual(await staticFigures(json));
+      expect(labelRows, `length ${length}`).toEqual(await labelRowsAt(length));
       // And straight from the JSON's numbers:
       expect(shown['oov-figure']).toBe(formatPercent(json.oovRate));
       expect(shown['truncated-detail']).toBe(`${formatCount(json.truncatedDocuments)} longer than ${formatCount(length)} tokens`);
@@ -240,7 +268,8 @@ describe('the report page controls in Chromium', () => {
     const built = await cli('build', DEMO, '--label', 'topic', '--cap', '600', '-o', smaller, '-q');
     expect(built.code, built.stderr).toBe(0);
     const json = await audited('--lexicon', smaller, '--length', '30');
-    const shown = await liveFigures(page);
+    const [shown, labelRows] = split(await liveFigures(page));
+    expect(labelRows).toEqual(await labelRowsAt(30));
     const reference = await staticFigures(json);
     // The coverage marker says what the lexicon's own first tokens cover (the curve is this corpus's best).
     expect(shown['cap-marker']).toBe(`chosen cap 600: ${formatPercent(shareOf(json.tokens - json.oovTokens, json.tokens))} covered by the lexicon`);
@@ -259,6 +288,10 @@ describe('the report page controls in Chromium', () => {
     expect(await page.locator('#controls').isVisible()).toBe(false);
     expect(await page.locator('#controls-off').isVisible()).toBe(true);
     expect(await page.locator('#build-line').textContent()).toContain(`--cap ${CAP} --length ${LENGTH} `);
+    // The static page: its figures are those of the audited pair, the per-label dropped and padding ones too.
+    const [shown, labelRows] = split(await liveFigures(page));
+    expect(shown).toEqual(await staticFigures(await audited('--cap', String(CAP), '--length', String(LENGTH))));
+    expect(labelRows).toEqual(await labelRowsAt(LENGTH));
     await context.close();
   });
 });

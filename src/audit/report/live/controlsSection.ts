@@ -65,7 +65,7 @@ export function controlsSection(data: PageData, fallbackLength: number): string 
     control('cap', 'Vocabulary cap (tokens kept)', capStops, capAt),
     control('length', 'Sequence length (tokens per row)', lengthStops, lengthAt),
     `<p class="note">${escapeHtml(capStopsNote(data))} ${escapeHtml(lengthStopsNote(data))}</p>`,
-    `<p class="note">The controls move the summary's OOV, truncation, dropped and padding figures, the OOV rate and truncated share of each label, and the chosen markers of the coverage chart and the length histogram; the other charts and tables stay at the audited cap and length.${escapeHtml(leftOut)}</p>`,
+    `<p class="note">The controls move the summary's OOV, truncation, dropped and padding figures, the OOV rate, truncated share, dropped tokens and padding share of each label, and the chosen markers of the coverage chart and the length histogram; the other charts and tables stay at the audited cap and length.${escapeHtml(leftOut)}</p>`,
     '</div>',
     '<p class="note" id="controls-off">This page shows the audited cap and length; open it in a browser that runs its script to try others.</p>',
     `<p class="build-line">To build a lexicon with these settings: <code id="build-line">${escapeHtml(buildLine(data, data.cap.chosen, data.length.chosen))}</code></p>`,

@@ -2,8 +2,8 @@
  * The report page's one script, hand-written and inlined (the page's Content-Security-Policy allows
  * it by its SHA-256 and nothing else). It reads the page's data (`#page-data`, see PageData), shows
  * the cap and length controls, and on every `input` recomputes from sums between stops the figures
- * marked `data-live`: the OOV, truncation, dropped and padding cards, each label's OOV rate and
- * truncated share, the chosen markers of the coverage chart and the length histogram, and the
+ * marked `data-live`: the OOV, truncation, dropped and padding cards, each label's OOV rate,
+ * truncated share, dropped tokens and padding share, the chosen markers of the coverage chart and the length histogram, and the
  * `lexlock build` line. Numbers are formatted as formatCount and formatPercent format them.
  */
 export const PAGE_SCRIPT = String.raw`
@@ -134,11 +134,15 @@ export const PAGE_SCRIPT = String.raw`
     var slots = overall.documents * length;
     put('padding-figure', count(all.padding));
     put('padding-detail', percent(shareOf(all.padding, slots)) + ' of the ' + count(slots) + ' ids, zeros at the ' + data.pad + ' of short rows');
-    Array.prototype.forEach.call(document.querySelectorAll('[data-live="label-oov"], [data-live="label-truncated"]'), function (cell) {
+    Array.prototype.forEach.call(document.querySelectorAll('[data-live^="label-"]'), function (cell) {
       var s = byName['=' + cell.getAttribute('data-row')];
       if (s === undefined) return;
       var f = figures(s, capIndex, lengthIndex, length);
-      cell.textContent = cell.getAttribute('data-live') === 'label-oov' ? percent(shareOf(f.oov, s.tokens)) : percent(shareOf(f.truncated, s.documents));
+      var what = cell.getAttribute('data-live');
+      if (what === 'label-oov') cell.textContent = percent(shareOf(f.oov, s.tokens));
+      else if (what === 'label-truncated') cell.textContent = percent(shareOf(f.truncated, s.documents));
+      else if (what === 'label-dropped') cell.textContent = count(f.dropped);
+      else if (what === 'label-padding') cell.textContent = percent(shareOf(f.padding, s.documents * length));
     });
     var covered = shareOf(all.kept, overall.tokens);
     moveMarker('cap-marker', cap, covered * 100, 'chosen cap ' + count(cap) + ': ' + percent(covered) + ' covered' + (data.ranking === 'lexicon' ? ' by the lexicon' : ''));
