@@ -86,7 +86,9 @@ async function textProblems(page: Page): Promise<string[]> {
     const found: string[] = [];
     for (const svg of svgs) {
       const frame = svg.getBoundingClientRect();
-      const texts = Array.from(svg.querySelectorAll('text')).map((t) => ({ text: t.textContent ?? '', box: t.getBoundingClientRect() }));
+      const texts = Array.from(svg.querySelectorAll('text'))
+        .filter((t) => getComputedStyle(t).visibility !== 'hidden')
+        .map((t) => ({ text: t.textContent ?? '', box: t.getBoundingClientRect() }));
       texts.forEach(({ text, box }, i) => {
         if (box.left < frame.left - 0.5 || box.right > frame.right + 0.5 || box.top < frame.top - 0.5 || box.bottom > frame.bottom + 0.5) found.push(`${svg.id}: "${text}" sticks out of the chart`);
         for (const other of texts.slice(i + 1)) {
@@ -175,6 +177,9 @@ beforeAll(async () => {
   dir = await mkdtemp(join(tmpdir(), 'lexlock-live-'));
   const made = await cli('audit', DEMO, '--label', 'topic', '--cap', String(CAP), '--length', String(LENGTH), '--report', join(dir, 'corpus.html'), '-q');
   expect(made.code, made.stderr).toBe(0);
+  // Audited far from every suggestion, so the chosen labels sit in the first row, beside the suggestions'.
+  const far = await cli('audit', DEMO, '--label', 'topic', '--cap', '5', '--length', '2', '--report', join(dir, 'far.html'), '-q');
+  expect(far.code, far.stderr).toBe(0);
   const built = await cli('build', DEMO, '--label', 'topic', '--cap', '1500', '--length', '48', '-o', join(dir, 'lexicon.json'), '-q');
   expect(built.code, built.stderr).toBe(0);
   const againstLexicon = await cli('audit', DEMO, '--lexicon', join(dir, 'lexicon.json'), '--report', join(dir, 'lexicon.html'), '-q');
@@ -182,6 +187,7 @@ beforeAll(async () => {
   const served = await serveFiles({
     '/corpus.html': ['text/html; charset=utf-8', await readFile(join(dir, 'corpus.html'))],
     '/lexicon.html': ['text/html; charset=utf-8', await readFile(join(dir, 'lexicon.html'))],
+    '/far.html': ['text/html; charset=utf-8', await readFile(join(dir, 'far.html'))],
   });
   origin = served.origin;
   close = served.close;
@@ -258,6 +264,21 @@ describe('the report page controls in Chromium', () => {
     await page.close();
   }, 120_000);
 
+  it.each(['corpus.html', 'lexicon.html', 'far.html'])('%s: keep chart texts apart wherever the markers go (caps and lengths around every suggestion)', async (name) => {
+    const page = await openPage(name);
+    const json = await audited('--cap', String(CAP), '--length', String(LENGTH));
+    const s = json.suggest;
+    const caps = [1, 2, 5, 40, s.capFor90, s.capFor95, s.capFor99, json.types].flatMap((c) => [c - 30, c - 8, c, c + 8, c + 30]).filter((c) => c >= 1 && c <= json.types);
+    const lengths = [1, 3, s.lengthFor90, s.lengthFor95, s.lengthFor99, json.length.max].flatMap((l) => [l - 4, l - 1, l, l + 1, l + 4]).filter((l) => l >= 1 && l <= json.length.max);
+    for (let i = 0; i < Math.max(caps.length, lengths.length); i++) {
+      await typeInto(page, 'cap', caps[i % caps.length] as number);
+      await typeInto(page, 'length', lengths[i % lengths.length] as number);
+      expect(await textProblems(page), `cap ${caps[i % caps.length]}, length ${lengths[i % lengths.length]}`).toEqual([]);
+    }
+    expect(consoleErrors).toEqual([]);
+    await page.close();
+  }, 60_000);
+
   it('with --lexicon, start at the lexicon cap and length and show what a smaller lexicon of the same ranking would give', async () => {
     const page = await openPage('lexicon.html');
     expect(await page.locator('#cap-number').inputValue()).toBe('1500');
@@ -265,7 +286,10 @@ describe('the report page controls in Chromium', () => {
     await typeInto(page, 'cap', 600);
     await typeInto(page, 'length', 30);
     const smaller = join(dir, 'smaller.json');
-    const built = await cli('build', DEMO, '--label', 'topic', '--cap', '600', '-o', smaller, '-q');
+    // Audited far from every suggestion, so the chosen labels sit in the first row, beside the suggestions'.
+  const far = await cli('audit', DEMO, '--label', 'topic', '--cap', '5', '--length', '2', '--report', join(dir, 'far.html'), '-q');
+  expect(far.code, far.stderr).toBe(0);
+  const built = await cli('build', DEMO, '--label', 'topic', '--cap', '600', '-o', smaller, '-q');
     expect(built.code, built.stderr).toBe(0);
     const json = await audited('--lexicon', smaller, '--length', '30');
     const [shown, labelRows] = split(await liveFigures(page));

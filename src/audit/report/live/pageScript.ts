@@ -111,6 +111,13 @@ export const PAGE_SCRIPT = String.raw`
     var third = (hi - lo) / 3;
     text.setAttribute('text-anchor', at < lo + third ? 'start' : at > hi - third ? 'end' : 'middle');
     text.setAttribute('x', at);
+    // A suggestion's label the moved one would cover is hidden while it does (its dashed line stays).
+    var box = text.getBBox();
+    Array.prototype.forEach.call(group.querySelectorAll('text.marker-suggestion'), function (other) {
+      var b = other.getBBox();
+      var apart = b.x + b.width < box.x || box.x + box.width < b.x || b.y + b.height < box.y || box.y + box.height < b.y;
+      other.style.visibility = apart ? '' : 'hidden';
+    });
   }
 
   var capRange = document.getElementById('cap-range');
