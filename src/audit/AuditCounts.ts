@@ -1,3 +1,4 @@
+import { LexlockError } from '../LexlockError.js';
 import type { Lexicon } from '../lexicon/Lexicon.js';
 import { scanTokens } from '../rules/scanTokens.js';
 import { TokenSpans } from '../rules/TokenSpans.js';
@@ -50,10 +51,21 @@ export class AuditCounts implements Omit<AuditParts, 'tally' | 'page'> {
   /** Occurrences by rank and lengths per label, for the report page's controls; null when not asked for. */
   readonly page: PageCounts | null;
 
+  /**
+   * With page counts ranked by another lexicon (one holding every token of the corpus, the audited
+   * lexicon's first): tokens are looked up there, once, and ids past the audited lexicon's become its OOV id.
+   */
+  readonly #ranking: Lexicon | null;
+  /** The first id the ranking gives that the audited lexicon does not have. */
+  readonly #pastLexicon: number;
+
   constructor(lexicon: Lexicon, length: number | null, page: PageCounts | null = null) {
     this.lexicon = lexicon;
     this.length = length;
     this.page = page;
+    this.#ranking = page === null || page.ranking === lexicon ? null : page.ranking;
+    this.#pastLexicon = lexicon.size;
+    if (this.#ranking !== null) assertPrefix(lexicon, this.#ranking);
     this.#tally = new Tally(lexicon.rules);
     this.#known = new TokenFigures(lexicon.size);
   }
@@ -82,8 +94,14 @@ export class AuditCounts implements Omit<AuditParts, 'tally' | 'page'> {
       this.#ids = new Int32Array(room);
       this.#oovPlaces = new Int32Array(room);
     }
-    const ids = this.lexicon.idsOfScanned(scanned, this.#ids);
     const oovId = this.lexicon.oovId;
+    const ranking = this.#ranking;
+    const ids = (ranking ?? this.lexicon).idsOfScanned(scanned, this.#ids);
+    if (this.page !== null) this.page.add(ids, n, label);
+    if (ranking !== null) {
+      const past = this.#pastLexicon;
+      for (let i = 0; i < n; i++) if ((ids[i] as number) >= past) ids[i] = oovId;
+    }
     const known = this.#known;
     // The number the tally gives this document when it counts it below (numbers only grow, merges too).
     const document = this.#tally.documents + 1;
@@ -97,7 +115,6 @@ export class AuditCounts implements Omit<AuditParts, 'tally' | 'page'> {
       }
       known.occur(id, document);
     }
-    this.page?.add(scanned, ids, this.lexicon, label);
     this.#tally.addPickedSpans(scanned, label, oovPlaces, oov);
     this.oovTokens += oov;
     if (oov > 0) this.oovPositions.addPlaces(oovPlaces, oov, n);
@@ -156,5 +173,22 @@ export class AuditCounts implements Omit<AuditParts, 'tally' | 'page'> {
     l.oovTokens += a.oovTokens;
     l.truncatedDocuments += a.truncatedDocuments;
     this.labels.set(label, l);
+  }
+}
+
+/** Checks that `ranking` extends `lexicon`: OOV first in both, no reserved tokens, the same rules and first tokens. */
+function assertPrefix(lexicon: Lexicon, ranking: Lexicon): void {
+  const a = lexicon.encoding;
+  const b = ranking.encoding;
+  const same =
+    a.layout.oov === 'first' &&
+    b.layout.oov === 'first' &&
+    a.layout.reserved === 0 &&
+    b.layout.reserved === 0 &&
+    JSON.stringify(a.rules) === JSON.stringify(b.rules) &&
+    a.tokens.length <= b.tokens.length &&
+    a.tokens.every((token, i) => b.tokens[i] === token);
+  if (!same) {
+    throw new LexlockError('BAD_OPTION', "page.ranking must list the audited lexicon's tokens first, under the same rules, with OOV first and no reserved tokens; make it with rankingLexicon", { field: 'page.ranking' });
   }
 }

@@ -1,5 +1,4 @@
 import type { Lexicon } from '../../lexicon/Lexicon.js';
-import type { TokenSpans } from '../../rules/TokenSpans.js';
 import { StopIndex, type StopGrid } from './StopGrid.js';
 
 /** The additive figures of {@link PageCounts}, as a worker thread sends them back. */
@@ -42,12 +41,8 @@ export class PageCounts {
     return id >= this.#firstToken && id < this.#firstRanked ? 0 : -1;
   }
 
-  /**
-   * Counts one document: `ids` are its ids under `audited` (the lexicon audited), whose tokens are a
-   * prefix of the ranking's when the two differ; the OOV ones are looked up again in the ranking.
-   */
-  add(scanned: TokenSpans, ids: Int32Array, audited: Lexicon, label: string | undefined): void {
-    const n = scanned.count;
+  /** Counts one document of `n` tokens by their ids under the ranking. */
+  add(ids: Int32Array, n: number, label: string | undefined): void {
     const overall = this.overall;
     let entry: { ranks: Float64Array; lengths: Map<number, number> } | undefined;
     if (label !== undefined) {
@@ -59,13 +54,8 @@ export class PageCounts {
       entry.lengths.set(n, (entry.lengths.get(n) ?? 0) + 1);
     }
     const ranks = entry?.ranks;
-    const again = audited !== this.ranking;
-    const oovId = audited.oovId;
     for (let i = 0; i < n; i++) {
-      let id = ids[i] as number;
-      if (again && id === oovId) id = this.ranking.idOfScanned(scanned, i);
-      else if (again && audited.encoding.layout.oov !== this.ranking.encoding.layout.oov) id = this.ranking.idOfScanned(scanned, i);
-      const bucket = this.bucketOfId(id);
+      const bucket = this.bucketOfId(ids[i] as number);
       if (bucket < 0) continue;
       overall[bucket] = (overall[bucket] as number) + 1;
       if (ranks !== undefined) ranks[bucket] = (ranks[bucket] as number) + 1;

@@ -7,23 +7,27 @@ export const RANKING_FINGERPRINT = 'ranking:not-a-lexicon';
 /**
  * Every token of a tally counted at least `minCount` times, in the order `freeze` ranks them (count
  * descending, then JavaScript string order), as a lexicon with the rules and layout of `like` (a
- * lexicon frozen from the same tally, without reserved tokens): its ids give each token's rank. Made
- * with one sort of token numbers and no fit record, fingerprint or canaries, which freeze would spend
- * time on for every token.
+ * lexicon frozen from the same tally, without reserved tokens): its ids give each token's rank. The
+ * tokens are grouped by count and each group sorted by the built-in string sort (UTF-16 code units,
+ * the order `<` gives), with no fit record, fingerprint or canaries, which freeze would spend time on
+ * for every token.
  * @example rankingLexicon(tally, 1, lexicon).encoding.tokens.length // tally.types
  */
 export function rankingLexicon(tally: Tally, minCount: number, like: Lexicon): Lexicon {
-  const tokens = [...tally.tokenList()];
   const counts = tally.countList();
-  const kept: number[] = [];
-  for (let i = 0; i < tokens.length; i++) if ((counts[i] as number) >= minCount && (counts[i] as number) > 0) kept.push(i);
-  kept.sort((a, b) => {
-    const difference = (counts[b] as number) - (counts[a] as number);
-    if (difference !== 0) return difference;
-    const x = tokens[a] as string;
-    const y = tokens[b] as string;
-    return x < y ? -1 : x > y ? 1 : 0;
-  });
-  const encoding = { ...like.encoding, tokens: kept.map((i) => tokens[i] as string) };
-  return new Lexicon(encoding, null, [], RANKING_FINGERPRINT);
+  const groups = new Map<number, string[]>();
+  let i = 0;
+  for (const token of tally.tokenList()) {
+    const count = counts[i++] as number;
+    if (count < minCount || count === 0) continue;
+    const group = groups.get(count);
+    if (group === undefined) groups.set(count, [token]);
+    else group.push(token);
+  }
+  const tokens: string[] = [];
+  for (const count of [...groups.keys()].sort((a, b) => b - a)) {
+    const group = (groups.get(count) as string[]).sort();
+    for (const token of group) tokens.push(token);
+  }
+  return new Lexicon({ ...like.encoding, tokens }, null, [], RANKING_FINGERPRINT);
 }

@@ -56,6 +56,8 @@ async function pageFor(docs: readonly Doc[], cap: number, length: number | null,
   const grid = stopGrid(ranked, points, [Math.min(cap, ranked)]);
   const counts = await auditCountsOnThreads(docs, audited, { page: { grid, ranking } });
   const report = auditReport(counts, audited);
+  // Looking tokens up in the ranking changes nothing in the audit's own report.
+  expect(report).toEqual(auditReport(await auditCountsOnThreads(docs, audited), audited));
   const data = pageDataOf(counts, report, { lexicon: audited, shape: audited.shape, build: { head: ['corpus.csv'], tail: [] }, ranking: 'corpus' });
   return { tally, data, minCount };
 }
