@@ -243,11 +243,6 @@ export class Lexicon {
     return out;
   }
 
-  /** The id of token `k` of `scanned` (tokens found by scanTokens under this lexicon's rules). */
-  idOfScanned(scanned: TokenSpans, k: number): number {
-    return this.#idOfToken(scanned, k);
-  }
-
   /** The id of token `k` of the text encode scanned last. */
   private idOfSpan(k: number): number {
     return this.#idOfToken(spans, k);
