@@ -301,6 +301,21 @@ describe('the report page controls in Chromium', () => {
     await page.close();
   }, 60_000);
 
+  it('prints on A4 without the controls, every chart within the printable width', async () => {
+    const page = await openPage('corpus.html');
+    const printable = Math.floor(((210 - 2 * 14) / 25.4) * 96); // A4 less the page's 14 mm margins, at 96 px an inch
+    await page.emulateMedia({ media: 'print' });
+    await page.setViewportSize({ width: printable, height: 1000 });
+    expect(await page.locator('#controls').isVisible()).toBe(false);
+    expect(await page.locator('#build-line').isVisible()).toBe(true);
+    for (const box of await page.locator('svg.chart').evaluateAll((svgs) => svgs.map((s) => s.getBoundingClientRect().toJSON() as DOMRect))) {
+      expect(box.left).toBeGreaterThanOrEqual(0);
+      expect(box.right).toBeLessThanOrEqual(printable + 0.5);
+    }
+    expect((await page.pdf({ format: 'A4' })).subarray(0, 5).toString('latin1')).toBe('%PDF-');
+    await page.close();
+  });
+
   it('keeps the audited figures and its build line when the script is blocked', async () => {
     if (browser === undefined) throw new Error(MISSING);
     const context = await browser.newContext({ javaScriptEnabled: false });
