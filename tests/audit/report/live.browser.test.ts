@@ -291,6 +291,8 @@ describe('the report page controls in Chromium', () => {
     const json = await audited('--lexicon', smaller, '--length', '30');
     const [shown, labelRows] = split(await liveFigures(page));
     expect(labelRows).toEqual(await labelRowsAt(30));
+    // The build line names the corpus the lexicon was built from, as its fit record does (the last segment).
+    expect(await page.locator('#build-line').textContent()).toBe('lexlock build ferry-messages.csv -o ferry-messages.lexicon.json --cap 600 --length 30 --pad end --cut end --label topic');
     const reference = await staticFigures(json);
     // The coverage marker says what the lexicon's own first tokens cover (the curve is this corpus's best).
     expect(shown['cap-marker']).toBe(`chosen cap 600: ${formatPercent(shareOf(json.tokens - json.oovTokens, json.tokens))} covered by the lexicon`);
