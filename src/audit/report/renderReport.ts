@@ -41,7 +41,9 @@ function dataBlock(data: PageData): string {
  * cap and length controls and the one script that makes them recompute the figures; without it, no script.
  * @example await writeFile('audit.html', renderReport(report, { corpus: 'tickets.csv', lexiconFile: 'tickets.lexicon.json', settings: {}, generatedAt: new Date().toISOString(), lexlockVersion: VERSION }))
  */
-export function renderReport(report: CoverageReport, context: ReportContext, page: PageData | null = null): string {
+export function renderReport(report: CoverageReport, context: ReportContext, data: PageData | null = null): string {
+  // A corpus without tokens has no cap or length to try.
+  const page = data !== null && data.overall.tokens > 0 ? data : null;
   const script = page === null ? null : PAGE_SCRIPT;
   const sections = [
     headerSection(report, context),

@@ -180,6 +180,8 @@ beforeAll(async () => {
   // Audited far from every suggestion, so the chosen labels sit in the first row, beside the suggestions'.
   const far = await cli('audit', DEMO, '--label', 'topic', '--cap', '5', '--length', '2', '--report', join(dir, 'far.html'), '-q');
   expect(far.code, far.stderr).toBe(0);
+  const free = await cli('audit', DEMO, '--label', 'topic', '--cap', '800', '--report', join(dir, 'nolength.html'), '-q');
+  expect(free.code, free.stderr).toBe(0);
   const built = await cli('build', DEMO, '--label', 'topic', '--cap', '1500', '--length', '48', '-o', join(dir, 'lexicon.json'), '-q');
   expect(built.code, built.stderr).toBe(0);
   const againstLexicon = await cli('audit', DEMO, '--lexicon', join(dir, 'lexicon.json'), '--report', join(dir, 'lexicon.html'), '-q');
@@ -188,6 +190,7 @@ beforeAll(async () => {
     '/corpus.html': ['text/html; charset=utf-8', await readFile(join(dir, 'corpus.html'))],
     '/lexicon.html': ['text/html; charset=utf-8', await readFile(join(dir, 'lexicon.html'))],
     '/far.html': ['text/html; charset=utf-8', await readFile(join(dir, 'far.html'))],
+    '/nolength.html': ['text/html; charset=utf-8', await readFile(join(dir, 'nolength.html'))],
   });
   origin = served.origin;
   close = served.close;
@@ -302,6 +305,22 @@ describe('the report page controls in Chromium', () => {
     expect(consoleErrors).toEqual([]);
     await page.close();
   }, 60_000);
+
+  it('without --length, start the length control at the corpus p95 and count from there once moved', async () => {
+    const page = await openPage('nolength.html');
+    const json = await audited('--cap', '800');
+    expect(await page.locator('#length-number').inputValue()).toBe(String(json.suggest.lengthFor95));
+    expect(await page.locator('[data-live="truncated-figure"]').textContent()).toBe('–');
+    await typeInto(page, 'cap', 300);
+    const [shown] = split(await liveFigures(page));
+    const reference = await staticFigures(await audited('--cap', '300', '--length', String(json.suggest.lengthFor95)));
+    // The histogram of an audit without a length has no chosen length to move: every other figure follows.
+    expect(shown['length-marker']).toBeUndefined();
+    delete reference['length-marker'];
+    expect(shown).toEqual(reference);
+    expect(consoleErrors).toEqual([]);
+    await page.close();
+  });
 
   it('prints on A4 without the controls, every chart within the printable width', async () => {
     const page = await openPage('corpus.html');
