@@ -1,3 +1,4 @@
+import { LexlockError } from '../LexlockError.js';
 import type { Lexicon } from '../lexicon/Lexicon.js';
 import { scanTokens } from '../rules/scanTokens.js';
 import { TokenSpans } from '../rules/TokenSpans.js';
@@ -5,6 +6,7 @@ import { Tally, type TallyCounts } from '../tally/Tally.js';
 import { COUNT, DOCUMENTS, TokenFigures } from '../tally/TokenFigures.js';
 import type { LabelAudit } from './CoverageReport.js';
 import { OovPositions, type OovPositionCounts } from './OovPositions.js';
+import type { PageCounts, PageParts } from './explore/PageCounts.js';
 
 /** Where {@link AuditCounts.add} leaves a document's tokens (reused: one document at a time). */
 const scanned = new TokenSpans();
@@ -19,13 +21,15 @@ export interface AuditParts {
   paddingTokens: number;
   /** Where documents have their OOV tokens, from either end (for the OOV rate of what rows keep). */
   oovPositions: OovPositionCounts;
+  /** What the report page's controls need (when asked for). */
+  page?: PageParts;
 }
 
 /**
  * What an audit counts, document by document: the corpus tally, OOV and truncation overall and per
  * label. Everything adds up, so counts made over parts of a corpus (threads) merge to the same.
  */
-export class AuditCounts implements Omit<AuditParts, 'tally'> {
+export class AuditCounts implements Omit<AuditParts, 'tally' | 'page'> {
   /** Every document's totals, and the occurrences of tokens outside the lexicon (see {@link AuditCounts.tally}). */
   readonly #tally: Tally;
   /**
@@ -44,10 +48,24 @@ export class AuditCounts implements Omit<AuditParts, 'tally'> {
   paddingTokens = 0;
   private readonly lexicon: Lexicon;
   private readonly length: number | null;
+  /** Occurrences by rank and lengths per label, for the report page's controls; null when not asked for. */
+  readonly page: PageCounts | null;
 
-  constructor(lexicon: Lexicon, length: number | null) {
+  /**
+   * With page counts ranked by another lexicon (one holding every token of the corpus, the audited
+   * lexicon's first): tokens are looked up there, once, and ids past the audited lexicon's become its OOV id.
+   */
+  readonly #ranking: Lexicon | null;
+  /** The first id the ranking gives that the audited lexicon does not have. */
+  readonly #pastLexicon: number;
+
+  constructor(lexicon: Lexicon, length: number | null, page: PageCounts | null = null) {
     this.lexicon = lexicon;
     this.length = length;
+    this.page = page;
+    this.#ranking = page === null || page.ranking === lexicon ? null : page.ranking;
+    this.#pastLexicon = lexicon.size;
+    if (this.#ranking !== null) assertPrefix(lexicon, this.#ranking);
     this.#tally = new Tally(lexicon.rules);
     this.#known = new TokenFigures(lexicon.size);
   }
@@ -76,8 +94,14 @@ export class AuditCounts implements Omit<AuditParts, 'tally'> {
       this.#ids = new Int32Array(room);
       this.#oovPlaces = new Int32Array(room);
     }
-    const ids = this.lexicon.idsOfScanned(scanned, this.#ids);
     const oovId = this.lexicon.oovId;
+    const ranking = this.#ranking;
+    const ids = (ranking ?? this.lexicon).idsOfScanned(scanned, this.#ids);
+    if (this.page !== null) this.page.add(ids, n, label);
+    if (ranking !== null) {
+      const past = this.#pastLexicon;
+      for (let i = 0; i < n; i++) if ((ids[i] as number) >= past) ids[i] = oovId;
+    }
     const known = this.#known;
     // The number the tally gives this document when it counts it below (numbers only grow, merges too).
     const document = this.#tally.documents + 1;
@@ -124,6 +148,7 @@ export class AuditCounts implements Omit<AuditParts, 'tally'> {
     this.droppedTokens += parts.droppedTokens;
     this.paddingTokens += parts.paddingTokens;
     this.oovPositions.merge(parts.oovPositions);
+    if (parts.page !== undefined) this.page?.merge(parts.page);
     return this;
   }
 
@@ -137,6 +162,7 @@ export class AuditCounts implements Omit<AuditParts, 'tally'> {
       droppedTokens: this.droppedTokens,
       paddingTokens: this.paddingTokens,
       oovPositions: { fromStart: this.oovPositions.fromStart, fromEnd: this.oovPositions.fromEnd },
+      ...(this.page === null ? {} : { page: this.page.parts() }),
     };
   }
 
@@ -147,5 +173,22 @@ export class AuditCounts implements Omit<AuditParts, 'tally'> {
     l.oovTokens += a.oovTokens;
     l.truncatedDocuments += a.truncatedDocuments;
     this.labels.set(label, l);
+  }
+}
+
+/** Checks that `ranking` extends `lexicon`: OOV first in both, no reserved tokens, the same rules and first tokens. */
+function assertPrefix(lexicon: Lexicon, ranking: Lexicon): void {
+  const a = lexicon.encoding;
+  const b = ranking.encoding;
+  const same =
+    a.layout.oov === 'first' &&
+    b.layout.oov === 'first' &&
+    a.layout.reserved === 0 &&
+    b.layout.reserved === 0 &&
+    JSON.stringify(a.rules) === JSON.stringify(b.rules) &&
+    a.tokens.length <= b.tokens.length &&
+    a.tokens.every((token, i) => b.tokens[i] === token);
+  if (!same) {
+    throw new LexlockError('BAD_OPTION', "page.ranking must list the audited lexicon's tokens first, under the same rules, with OOV first and no reserved tokens; make it with rankingLexicon", { field: 'page.ranking' });
   }
 }

@@ -1,4 +1,5 @@
 import { describeShape, type Shape } from '../lexicon/Shape.js';
+import type { AuditCounts } from '../audit/AuditCounts.js';
 import type { CoverageReport } from '../audit/CoverageReport.js';
 import { renderReport } from '../audit/report/renderReport.js';
 import { readCorpus } from '../corpus/readCorpus.js';
@@ -9,7 +10,12 @@ import { assertWritable } from '../files/refuseOverwrite.js';
 import { freeze } from '../lexicon/freeze.js';
 import type { Lexicon } from '../lexicon/Lexicon.js';
 import { LexlockError } from '../LexlockError.js';
-import { auditOnThreads } from '../pipeline/auditOnThreads.js';
+import { auditCountsOnThreads, type PageRequest } from '../pipeline/auditOnThreads.js';
+import { auditReport } from '../audit/auditCorpus.js';
+import { capGrid } from '../audit/explore/pageBudget.js';
+import { pageDataOf } from '../audit/explore/pageDataOf.js';
+import { rankingLexicon } from '../audit/explore/rankingLexicon.js';
+import { buildWords } from './buildWords.js';
 import { tallyCorpus } from '../pipeline/tallyCorpus.js';
 import { VERSION } from '../version.js';
 import { auditSummary, crossedGates, type Gates } from './auditSummary.js';
@@ -122,11 +128,17 @@ async function auditHolding(context: {
 
   let lexicon: Lexicon;
   let options;
+  // What the report page's controls need: the cap grid and, with --cap, a lexicon of every token to rank by.
+  let page: PageRequest | undefined;
   if (lexiconPath !== undefined) {
     lexicon = await loadLexicon(lexiconPath);
     const defaults = lexiconFieldDefaults(corpus, lexicon);
     options = corpusOptions(args, noLabels ? { text: defaults.text } : defaults);
     assertLabelsRead(corpus, readCorpus(corpus, options).kind, options.label, lexicon, lexiconPath, noLabels, 'audit without labels');
+    if (reportPath !== undefined) {
+      const ranked = lexicon.encoding.tokens.length - lexicon.encoding.layout.reserved;
+      page = { grid: capGrid(ranked, ranked, lexicon.labels.length) };
+    }
   } else {
     options = corpusOptions(args);
     const rules = rulesFromFlags(args);
@@ -134,7 +146,12 @@ async function auditHolding(context: {
     try {
       const counted = readCorpus(corpus, { ...options, onProgress: (p) => counting.update(p) });
       const { tally } = await tallyCorpus(noLabels && counted.kind === 'folder' ? withoutLabels(counted) : counted, rules, { threads });
-      lexicon = freeze(tally, { cap: cap ?? null, minCount: wholeNumberFlag(args, 'min-count', 1) ?? 1, shape: flagShape });
+      const minCount = wholeNumberFlag(args, 'min-count', 1) ?? 1;
+      lexicon = freeze(tally, { cap: cap ?? null, minCount, shape: flagShape });
+      if (reportPath !== undefined) {
+        const ranking = rankingLexicon(tally, minCount, lexicon);
+        page = { grid: capGrid(ranking.encoding.tokens.length, cap ?? 0, tally.labels.size), ranking };
+      }
     } finally {
       counting.done();
     }
@@ -142,12 +159,13 @@ async function auditHolding(context: {
   const shape = flagShape ?? lexicon.shape;
   const progress = createProgress(io, lexiconPath === undefined ? 'audit 2/2 measuring' : 'audit', { quiet, totalBytes });
   const reader = readCorpus(corpus, { ...options, onProgress: (p) => progress.update(p) });
-  let report: CoverageReport;
+  let counts: AuditCounts;
   try {
-    report = await auditOnThreads(noLabels && reader.kind === 'folder' ? withoutLabels(reader) : reader, lexicon, { shape, drift: lexiconPath !== undefined, threads });
+    counts = await auditCountsOnThreads(noLabels && reader.kind === 'folder' ? withoutLabels(reader) : reader, lexicon, { shape, threads, ...(page === undefined ? {} : { page }) });
   } finally {
     progress.done();
   }
+  const report: CoverageReport = auditReport(counts, lexicon, { shape, drift: lexiconPath !== undefined });
   if (lexiconPath !== undefined) {
     const labelled = Object.values(report.labels).reduce((sum, l) => sum + l.documents, 0);
     assertFolderLabelled(corpus, reader.kind, labelled, lexicon, lexiconPath, noLabels, 'audit without labels');
@@ -159,7 +177,9 @@ async function auditHolding(context: {
     if (options.label !== undefined) settings.label = options.label;
     if (gates.maxOov !== null) settings['max OOV'] = String(gates.maxOov);
     if (gates.maxTruncated !== null) settings['max truncated'] = String(gates.maxTruncated);
-    const html = renderReport(report, { corpus, lexiconFile: lexiconPath ?? null, settings, generatedAt: new Date().toISOString(), lexlockVersion: VERSION });
+    const build = buildWords({ corpus, lexicon, fromLexicon: lexiconPath !== undefined, args, text: options.text, label: options.label });
+    const data = pageDataOf(counts, report, { lexicon, shape, build, ranking: lexiconPath === undefined ? 'corpus' : 'lexicon' });
+    const html = renderReport(report, { corpus, lexiconFile: lexiconPath ?? null, settings, generatedAt: new Date().toISOString(), lexlockVersion: VERSION }, data);
     await writeWhole(reportPath, html);
   }
   const crossed = crossedGates(report, gates);

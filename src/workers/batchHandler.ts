@@ -1,4 +1,5 @@
 import { AuditCounts } from '../audit/AuditCounts.js';
+import { PageCounts } from '../audit/explore/PageCounts.js';
 import { isLexlockError } from '../LexlockError.js';
 import { Lexicon } from '../lexicon/Lexicon.js';
 import { Tally } from '../tally/Tally.js';
@@ -40,6 +41,9 @@ export function batchHandler(setup: WorkerSetup, targets: LocalTargets = {}, ind
   const lexicon = setup.kind === 'tally' ? null : (targets.lexicon ?? new Lexicon(setup.encoding, null, [], setup.fingerprint));
   let tally: Tally | null = null;
   let audit: AuditCounts | null = null;
+  // The lexicon that ranks tokens for the report page, when it is not the one audited (made once).
+  const ranking =
+    setup.kind === 'audit' && setup.page !== undefined && setup.page.ranking !== null ? new Lexicon(setup.page.ranking.encoding, null, [], setup.page.ranking.fingerprint) : null;
   // Each set of counts this thread sends is a group; token numbers name the group they belong to.
   let sent = 0;
   const group = () => (tally !== null && tally === targets.tally ? 0 : index * GROUPS_PER_THREAD + sent + 1);
@@ -71,7 +75,8 @@ export function batchHandler(setup: WorkerSetup, targets: LocalTargets = {}, ind
     }
     const lex = lexicon as Lexicon;
     if (setup.kind === 'audit') {
-      const a = (audit ??= targets.audit ?? new AuditCounts(lex, setup.length));
+      const page = setup.page === undefined ? null : new PageCounts(setup.page.grid, ranking ?? lex);
+      const a = (audit ??= targets.audit ?? new AuditCounts(lex, setup.length, page));
       batch.texts.forEach((text, i) => a.add(text, batch.labels[i] ?? undefined));
       return a !== targets.audit && a.keptTypes >= KEPT_TYPES ? take(batch.id) : { id: batch.id, kept: true };
     }

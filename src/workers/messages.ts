@@ -1,5 +1,6 @@
 import type { Encoding } from '../artifact/schema.js';
 import type { AuditParts } from '../audit/AuditCounts.js';
+import type { StopGrid } from '../audit/explore/StopGrid.js';
 import type { TallyCounts } from '../tally/Tally.js';
 import type { TextRules } from '../rules/TextRules.js';
 
@@ -11,7 +12,8 @@ export type WorkerSetup =
   /** `numbered`: also answer each batch's token numbers (see {@link NumberedBatch}). */
   | { kind: 'tally'; rules: TextRules; numbered?: boolean }
   | { kind: 'encode'; encoding: Encoding; fingerprint: string }
-  | { kind: 'audit'; encoding: Encoding; fingerprint: string; length: number | null };
+  /** `page`: also count what the report page's controls need, on this cap grid, ranked by `ranking` (null: the encoding's own order). */
+  | { kind: 'audit'; encoding: Encoding; fingerprint: string; length: number | null; page?: { grid: StopGrid; ranking: { encoding: Encoding; fingerprint: string } | null } };
 
 /** A batch of documents sent to a worker. */
 export interface Batch {

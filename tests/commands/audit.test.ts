@@ -1,3 +1,4 @@
+import { createHash } from 'node:crypto';
 import { readFile, writeFile } from 'node:fs/promises';
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
 import { run } from '../../src/cli.js';
@@ -144,7 +145,12 @@ describe('lexlock audit', () => {
     expect(r.code).toBe(0);
     const html = await readFile(tmp.path('r.html'), 'utf8');
     expect(html).toContain(JSON.parse(await readFile(tmp.path('lex.json'), 'utf8')).fingerprint);
-    expect(html).not.toMatch(/<script/i);
+    // One script runs: the page's own, allowed by its SHA-256 in the policy (hashed here by node:crypto),
+    // beside one JSON data block; nothing else is allowed to run or be fetched.
+    const scripts = [...html.matchAll(/<script([^>]*)>([\s\S]*?)<\/script>/gi)];
+    expect(scripts.map((m) => m[1])).toEqual([' type="application/json" id="page-data"', '']);
+    const hash = createHash('sha256').update(scripts[1]?.[2] ?? '', 'utf8').digest('base64');
+    expect(html).toContain(`content="default-src 'none'; script-src 'sha256-${hash}'; style-src 'unsafe-inline';`);
     expect(html).toContain("<p class=\"cap-tie\"><strong>The lexicon's cap cuts through a tie.</strong> cap 3 cuts through the 3 tokens seen twice: 2 kept by string order, 1 left out; caps 1 or 4 keep whole counts (in the corpus the lexicon was built from).</p>");
     expect(html).toContain('<td class="num">2 or 9</td>');
     const again = await cli('audit', tmp.path('live.csv'), '--lexicon', tmp.path('lex.json'), '--report', tmp.path('r.html'));

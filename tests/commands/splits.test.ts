@@ -14,6 +14,7 @@ import type { Lexicon } from '../../src/lexicon/Lexicon.js';
 import { realFileSystem, replaceFileSystem } from '../../src/files/fileSystem.js';
 import { splitOf } from '../../src/split/splitOf.js';
 import { cli, freshFolderEachTest } from '../helpers/cli.js';
+import { plainCsv } from '../helpers/plainCsv.js';
 
 const demo = new URL('../../corpora-demo/ferry-messages.csv', import.meta.url).pathname;
 const SPLITS = [
@@ -22,35 +23,6 @@ const SPLITS = [
   { name: 'test', share: 0.1 },
 ];
 const tmp = freshFolderEachTest();
-
-/** A plain RFC 4180 reader: records of fields; quotes may hold commas, line breaks and doubled quotes. */
-function plainCsv(text: string): string[][] {
-  const records: string[][] = [];
-  let field = '';
-  let fields: string[] = [];
-  let quoted = false;
-  for (let i = 0; i < text.length; i++) {
-    const c = text[i];
-    if (quoted) {
-      if (c === '"' && text[i + 1] === '"') {
-        field += '"';
-        i++;
-      } else if (c === '"') quoted = false;
-      else field += c;
-    } else if (c === '"') quoted = true;
-    else if (c === ',') {
-      fields.push(field);
-      field = '';
-    } else if (c === '\n') {
-      fields.push(field);
-      records.push(fields);
-      fields = [];
-      field = '';
-    } else field += c;
-  }
-  if (field !== '' || fields.length > 0) records.push([...fields, field]);
-  return records;
-}
 
 /** The demo corpus as the plain reader reads it: id, text, topic of every data row. */
 async function demoDocuments(): Promise<Array<{ id: string; text: string; topic: string }>> {

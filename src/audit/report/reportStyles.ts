@@ -42,17 +42,28 @@ svg.chart .marker-chosen { font-weight: 700; }
 svg.chart .marker-suggestion { fill: ${PALETTE.suggestion}; }
 svg.chart .group-note { fill: ${PALETTE.muted}; font-size: 10px; }
 svg.chart .bar-value { font-variant-numeric: tabular-nums; }
+.control { display: grid; grid-template-columns: minmax(12rem, 16rem) 1fr 7.5rem; gap: 0.3rem 0.8rem; align-items: center; margin: 0.5rem 0; }
+.control input[type="number"] { font: inherit; width: 7.5rem; font-variant-numeric: tabular-nums; }
+.control input[type="range"] { width: 100%; accent-color: ${PALETTE.primary}; }
+.control input:focus-visible { outline: 2px solid ${PALETTE.accent}; outline-offset: 2px; }
+.build-line code { display: block; margin-top: 0.3rem; padding: 6px 8px; background: #f6f7f9; border: 1px solid ${PALETTE.grid}; border-radius: 4px; user-select: all; }
 footer { max-width: 760px; margin: 0 auto; padding: 8px 28px 24px; font-size: 0.8rem; color: ${PALETTE.muted}; }
-@media (max-width: 560px) { .cards { grid-template-columns: repeat(2, 1fr); } main { padding: 16px; } }
+@media (max-width: 560px) { .cards { grid-template-columns: repeat(2, 1fr); } main { padding: 16px; } .control { grid-template-columns: 1fr 7.5rem; } .control label { grid-column: 1 / -1; } }
 @page { size: A4; margin: 14mm; }
 @media print {
   body { background: #ffffff; font-size: 10pt; }
   main { max-width: none; padding: 0; }
-  footer { max-width: none; padding: 6pt 0 0; }
+  .control { display: grid; grid-template-columns: minmax(12rem, 16rem) 1fr 7.5rem; gap: 0.3rem 0.8rem; align-items: center; margin: 0.5rem 0; }
+.control input[type="number"] { font: inherit; width: 7.5rem; font-variant-numeric: tabular-nums; }
+.control input[type="range"] { width: 100%; accent-color: ${PALETTE.primary}; }
+.control input:focus-visible { outline: 2px solid ${PALETTE.accent}; outline-offset: 2px; }
+.build-line code { display: block; margin-top: 0.3rem; padding: 6px 8px; background: #f6f7f9; border: 1px solid ${PALETTE.grid}; border-radius: 4px; user-select: all; }
+footer { max-width: none; padding: 6pt 0 0; }
   * { -webkit-print-color-adjust: exact; print-color-adjust: exact; }
   h2 { margin-top: 1.2rem; }
   table { break-inside: auto; }
   tr, .card, figure.chart-figure { break-inside: avoid; }
   svg.chart { max-width: 100%; }
+  #controls, #controls-off { display: none; }
 }
 `;

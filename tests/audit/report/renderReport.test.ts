@@ -155,7 +155,7 @@ describe('renderReport', () => {
   it('draws labels named like object members as ordinary labels', () => {
     const html = renderReport(smallReport(trickyLabels()), ferryContext());
     expect(html.match(/class="bar-group"/g)).toHaveLength(3);
-    expect(html).toContain('<th scope="row"><code>__proto__</code></th><td class="num">10</td><td class="num">100</td><td class="num">7.00\u00a0%</td><td class="num">10.0\u00a0%</td>');
+    expect(html).toContain('<th scope="row"><code>__proto__</code></th><td class="num">10</td><td class="num">100</td><td class="num" data-live="label-oov" data-row="__proto__">7.00\u00a0%</td><td class="num" data-live="label-truncated" data-row="__proto__">10.0\u00a0%</td>');
     expect(html).toContain('<th scope="row"><code>constructor</code></th><td class="num">20</td>');
   });
 
@@ -199,7 +199,7 @@ describe('renderReport', () => {
     expect(page).not.toContain('the lexicon&#39;s own tokens cover');
     // A cap larger than the corpus has types: the curve ends at 48,000, the axis runs on to the cap.
     const wide = renderReport({ ...report, lexicon: { ...report.lexicon, tokens: 60_002 } }, ferryContext());
-    expect(wide).toMatch(/class="marker marker-chosen">chosen cap 60,000: 100\u00a0% covered</);
+    expect(wide).toMatch(/class="marker marker-chosen" data-live="cap-marker">chosen cap 60,000: 100\u00a0% covered</);
     expect(wide).toContain('for N from 1 to 60,000');
   });
 });

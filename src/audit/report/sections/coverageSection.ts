@@ -18,7 +18,7 @@ export function coverageSection(report: CoverageReport): string {
   if (range === null) return `<section id="coverage">${heading}${note('No coverage figures: the lexicon or the corpus has no tokens.')}</section>`;
   const chosenShare = coverageAt(curve, cap);
   const markers: VerticalMarker[] = [];
-  if (cap > 0) markers.push({ x: cap, y: chosenShare * 100, label: `chosen cap ${formatCount(cap)}: ${formatPercent(chosenShare)} covered`, kind: 'chosen' });
+  if (cap > 0) markers.push({ x: cap, y: chosenShare * 100, label: `chosen cap ${formatCount(cap)}: ${formatPercent(chosenShare)} covered`, kind: 'chosen', live: 'cap-marker' });
   const suggestions: Array<[string, number]> = [
     ['90', report.suggest.capFor90],
     ['95', report.suggest.capFor95],

@@ -6,6 +6,8 @@ export interface Column {
   numeric?: boolean;
   /** Show cells as code (tokens, fingerprints). */
   code?: boolean;
+  /** Cells the page's script rewrites: `data-live` with this name, `data-row` with the row's first cell. */
+  live?: string;
 }
 
 /** An HTML table with a caption; every heading and cell is escaped. */
@@ -16,7 +18,8 @@ export function htmlTable(caption: string, columns: readonly Column[], rows: Rea
       const cells = columns.map((c, i) => {
         const text = escapeHtml(row[i] ?? '');
         const content = c.code === true ? `<code>${text}</code>` : text;
-        return i === 0 ? `<th scope="row"${c.numeric === true ? ' class="num"' : ''}>${content}</th>` : `<td${c.numeric === true ? ' class="num"' : ''}>${content}</td>`;
+        const live = c.live === undefined ? '' : ` data-live="${escapeHtml(c.live)}" data-row="${escapeHtml(row[0] ?? '')}"`;
+        return i === 0 ? `<th scope="row"${c.numeric === true ? ' class="num"' : ''}>${content}</th>` : `<td${c.numeric === true ? ' class="num"' : ''}${live}>${content}</td>`;
       });
       return `<tr>${cells.join('')}</tr>`;
     })

@@ -16,7 +16,7 @@ export function lengthSection(report: CoverageReport): string {
   if (bins.length === 0) return `<section id="lengths">${heading}${note('No documents, so no lengths to show.')}</section>`;
   const truncatedShare = shareOf(report.truncatedDocuments, report.documents);
   const markers: VerticalMarker[] = [];
-  if (shape !== null) markers.push({ x: shape.length + 0.5, label: `chosen length ${formatCount(shape.length)}: ${formatPercent(truncatedShare)} truncated`, kind: 'chosen' });
+  if (shape !== null) markers.push({ x: shape.length + 0.5, label: `chosen length ${formatCount(shape.length)}: ${formatPercent(truncatedShare)} truncated`, kind: 'chosen', live: 'length-marker' });
   const suggestions: Array<[string, number]> = [
     ['90', report.suggest.lengthFor90],
     ['95', report.suggest.lengthFor95],

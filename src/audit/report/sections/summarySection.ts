@@ -8,9 +8,13 @@ import { formatPercent } from '../formatPercent.js';
 import { shareOf } from '../shareOf.js';
 import { cutAdviceParagraph } from './windowSection.js';
 
-/** One summary card: a headline figure with a name and a line of detail. */
-function card(name: string, figure: string, detail: string): string {
-  return `<div class="card"><div class="card-name">${escapeHtml(name)}</div><div class="card-figure">${escapeHtml(figure)}</div><div class="card-detail">${escapeHtml(detail)}</div></div>`;
+/**
+ * One summary card: a headline figure with a name and a line of detail. `live` names the figure and
+ * detail (`data-live="<live>-figure"`, `"<live>-detail"`) for the page's script, which rewrites them.
+ */
+function card(name: string, figure: string, detail: string, live?: string): string {
+  const tag = (part: string) => (live === undefined ? '' : ` data-live="${live}-${part}"`);
+  return `<div class="card"><div class="card-name">${escapeHtml(name)}</div><div class="card-figure"${tag('figure')}>${escapeHtml(figure)}</div><div class="card-detail"${tag('detail')}>${escapeHtml(detail)}</div></div>`;
 }
 
 /** The headline figures: documents, tokens, OOV rate, truncation, dropped and padding tokens, suggestions. */
@@ -22,21 +26,24 @@ export function summarySection(report: CoverageReport): string {
   const cards = [
     card('Documents', formatCount(report.documents), `${formatCount(Object.keys(report.labels).length)} labels`),
     card('Tokens', formatCount(report.tokens), `${formatCount(report.types)} distinct; ${formatCount(l.p50)} per document (median)`),
-    card('OOV rate', formatPercent(report.oovRate), `${formatCount(report.oovTokens)} token occurrences with no id of their own`),
+    card('OOV rate', formatPercent(report.oovRate), `${formatCount(report.oovTokens)} token occurrences with no id of their own`, 'oov'),
     card(
       'Truncated documents',
       shape === null ? '–' : formatPercent(shareOf(report.truncatedDocuments, report.documents)),
       shape === null ? 'no sequence length set' : `${formatCount(report.truncatedDocuments)} longer than ${formatCount(shape.length)} tokens`,
+      'truncated',
     ),
     card(
       'Dropped tokens',
       shape === null ? '–' : formatCount(report.droppedTokens),
       shape === null ? 'no sequence length set' : `${formatPercent(shareOf(report.droppedTokens, report.tokens))} of all tokens, cut from the ${shape.cut} of long documents`,
+      'dropped',
     ),
     card(
       'Padding tokens',
       shape === null ? '–' : formatCount(report.paddingTokens),
       shape === null ? 'no sequence length set' : `${formatPercent(shareOf(report.paddingTokens, slots))} of the ${formatCount(slots)} ids, zeros at the ${shape.pad} of short rows`,
+      'padding',
     ),
   ];
   const whole = (w: WholeCaps) => (w.below === w.above ? 'the same' : `${formatCount(w.below)} or ${formatCount(w.above)}`);

@@ -7,4 +7,6 @@ export interface VerticalMarker {
   y?: number;
   label: string;
   kind: 'chosen' | 'suggestion';
+  /** A name the page's script finds the marker by (`data-live` on its label, line and dot) to move it. */
+  live?: string;
 }

@@ -3,7 +3,7 @@ import { bottomAxis, leftAxis, leftMarginFor } from './axisMarkup.js';
 import { chartSvg } from './chartSvg.js';
 import { hatchPattern } from './hatchPattern.js';
 import { legendMarkup } from './legendMarkup.js';
-import { MARKER_ROW, markerMarkup, markerRows } from './markerMarkup.js';
+import { MARKER_ROW, markerMarkup, markerRows, scaleAttribute } from './markerMarkup.js';
 import { PALETTE } from './palette.js';
 import { CHART_WIDTH, plotEdges, type PlotArea } from './PlotArea.js';
 import { svgTag } from './svgTag.js';
@@ -72,7 +72,7 @@ export function histogram(spec: HistogramSpec): string {
   }
   body += svgTag('g', { class: 'bars' }, bars);
   body += bottomAxis(area, x, xTicks.map((v) => ({ value: v, label: spec.format(v) })), spec.xTitle);
-  body += markerMarkup(markers, x, y, { y0, y1, minX: 2, maxX: x1 + area.right - 2 });
+  body += markerMarkup(markers, x, y, { y0, y1, minX: 2, maxX: x1 + area.right - 2 }, { 'data-x-scale': scaleAttribute('linear', dMin, dMax, x0, x1) });
   body += legendMarkup(
     [
       { name: spec.baseName, fill: PALETTE.primary, stroke: PALETTE.primary },

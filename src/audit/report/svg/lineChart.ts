@@ -1,7 +1,7 @@
 import { extent, linearScale, logScale, logTicks, niceTicks } from './axis.js';
 import { bottomAxis, leftAxis, leftMarginFor } from './axisMarkup.js';
 import { chartSvg } from './chartSvg.js';
-import { MARKER_ROW, markerMarkup, markerRows } from './markerMarkup.js';
+import { MARKER_ROW, markerMarkup, markerRows, scaleAttribute } from './markerMarkup.js';
 import { PALETTE } from './palette.js';
 import { CHART_WIDTH, plotEdges, type PlotArea } from './PlotArea.js';
 import { px, svgTag } from './svgTag.js';
@@ -53,6 +53,9 @@ export function lineChart(spec: LineChartSpec): string {
     }
     body += svgTag('path', { d: line, fill: 'none', stroke: PALETTE.primary, 'stroke-width': 2.25, 'stroke-linejoin': 'round', class: 'series' });
   }
-  body += markerMarkup(markers, x, y, { y0, y1, minX: 2, maxX: x1 + area.right - 2 });
+  body += markerMarkup(markers, x, y, { y0, y1, minX: 2, maxX: x1 + area.right - 2 }, {
+    'data-x-scale': scaleAttribute(spec.xLog ? 'log' : 'linear', xMin, xMax, x0, x1),
+    'data-y-scale': scaleAttribute('linear', spec.y.min, spec.y.max, y1, y0),
+  });
   return chartSvg({ id: spec.id, width: area.width, height: area.height, title: spec.title, description: spec.description, body });
 }

@@ -12,6 +12,7 @@ const SAME_PLACE = 8;
 /** A label and the marker kind it stands for. */
 interface MarkerLabel extends LabelRequest {
   kind: VerticalMarker['kind'];
+  live?: string | undefined;
 }
 
 /**
@@ -31,7 +32,7 @@ function markerLabels(markers: readonly VerticalMarker[], position: (x: number) 
     else merged.push({ ...s, kind: 'suggestion' });
     lastX = s.x;
   }
-  const chosen = markers.filter((m) => m.kind === 'chosen').map((m): MarkerLabel => ({ x: position(m.x), text: m.label, kind: 'chosen' }));
+  const chosen = markers.filter((m) => m.kind === 'chosen').map((m): MarkerLabel => ({ x: position(m.x), text: m.label, kind: 'chosen', live: m.live }));
   return [...merged, ...chosen];
 }
 
@@ -42,13 +43,15 @@ export function markerRows(markers: readonly VerticalMarker[], position: (x: num
 
 /**
  * Marker lines from `y1` up to their labels, which sit in rows above `y0` (row 0 just above it).
- * `yPosition` maps a marker's `y` to a pixel row for its dot.
+ * `yPosition` maps a marker's `y` to a pixel row for its dot. `scales` (attributes of the markers'
+ * group) tell the page's script how to place a moved marker: see {@link scaleAttribute}.
  */
 export function markerMarkup(
   markers: readonly VerticalMarker[],
   position: (x: number) => number,
   yPosition: (y: number) => number,
   edges: { y0: number; y1: number; minX: number; maxX: number },
+  scales: Record<string, string> = {},
 ): string {
   const labels = markerLabels(markers, position);
   const placed = placeLabels(labels, edges.minX, edges.maxX);
@@ -76,18 +79,28 @@ export function markerMarkup(
       stroke: strong ? PALETTE.ink : PALETTE.suggestion,
       'stroke-width': strong ? 2 : 1,
       'stroke-dasharray': strong ? undefined : '4 3',
+      'data-live-line': marker.live,
     });
     if (marker.y !== undefined) {
-      lines += svgTag('circle', { cx: x, cy: yPosition(marker.y), r: strong ? 4 : 2.5, fill: strong ? PALETTE.ink : PALETTE.suggestion, stroke: '#ffffff', 'stroke-width': 1 });
+      lines += svgTag('circle', { cx: x, cy: yPosition(marker.y), r: strong ? 4 : 2.5, fill: strong ? PALETTE.ink : PALETTE.suggestion, stroke: '#ffffff', 'stroke-width': 1, 'data-live-dot': marker.live });
     }
   }
   let texts = '';
   placed.forEach((p, i) => {
     const strong = labels[i]?.kind === 'chosen';
     texts += svgText(
-      { x: p.textX, y: edges.y0 - p.row * MARKER_ROW - 4, 'text-anchor': p.anchor, class: strong ? 'marker marker-chosen' : 'marker marker-suggestion' },
+      { x: p.textX, y: edges.y0 - p.row * MARKER_ROW - 4, 'text-anchor': p.anchor, class: strong ? 'marker marker-chosen' : 'marker marker-suggestion', 'data-live': labels[i]?.live },
       p.text,
     );
   });
-  return svgTag('g', { class: 'markers' }, lines + texts);
+  return svgTag('g', { class: 'markers', ...scales }, lines + texts);
+}
+
+/**
+ * A scale as the page's script reads it: `log` or `linear`, the domain's ends, the range's ends
+ * (pixels), space-separated.
+ * @example scaleAttribute('log', 1, 1000, 60, 650) // 'log 1 1000 60 650'
+ */
+export function scaleAttribute(kind: 'log' | 'linear', d0: number, d1: number, r0: number, r1: number): string {
+  return `${kind} ${d0} ${d1} ${r0} ${r1}`;
 }

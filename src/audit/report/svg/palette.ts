@@ -1,6 +1,8 @@
 /**
  * Colours from a palette that stays distinguishable with the common colour-vision deficiencies;
- * every series also differs by pattern or label, never by colour alone.
+ * every series also differs by pattern or label, never by colour alone. `primary` (blue #0072B2),
+ * `accent` (vermillion #D55E00) and `second` (orange #E69F00) are from Okabe & Ito, "Color Universal
+ * Design" (2008; the values from memory); the light tints, inks and greys are our own.
  */
 export const PALETTE = {
   ink: '#1f2328',
