@@ -158,6 +158,20 @@ describe('lexlock audit', () => {
   });
 });
 
+describe('lexlock audit: the report page controls', () => {
+  // The note under the controls names the range they take: its first cap and length are the number
+  // boxes' least values (a cap of 0 is no cap lexlock build takes).
+  it('says its caps and lengths run from the least value its controls take', async () => {
+    const r = await cli('audit', tmp.path('live.csv'), '--cap', '3', '--length', '4', '--report', tmp.path('r.html'));
+    expect(r.code).toBe(0);
+    const html = await readFile(tmp.path('r.html'), 'utf8');
+    expect(html).toContain('<input type="number" id="cap-number" aria-label="Vocabulary cap (tokens kept), exact value" min="1" max="9"');
+    expect(html).toContain('Every cap from 1 to 9 is exact.');
+    expect(html).toContain('<input type="number" id="length-number" aria-label="Sequence length (tokens per row), exact value" min="1" max="6"');
+    expect(html).toContain('Every length from 1 to 6 is exact.');
+  });
+});
+
 describe('lexlock audit: which end to cut', () => {
   it('says which cut end keeps more known tokens', async () => {
     // Known (cap 3): late, ferry, the. Each live document starts with OOV tokens and ends with known ones.

@@ -25,7 +25,7 @@ function capStopsNote(data: PageData): string {
     data.ranking === 'corpus'
       ? "Caps rank this corpus's tokens as lexlock build would (count, then string order)."
       : "Caps keep the lexicon's first tokens in its own order (reserved tokens always): what this corpus would lose with a smaller lexicon.";
-  if (g.step === 1) return `${basis} Every cap from 0 to ${formatCount(g.last)} is exact.`;
+  if (g.step === 1) return `${basis} Every cap from 1 to ${formatCount(g.last)} is exact.`;
   const extra = g.extra.length === 0 ? '' : ` and at ${g.extra.map((e) => formatCount(e)).join(', ')} (the audited cap)`;
   return `${basis} Caps above ${formatCount(g.exactTo)} move in steps of ${formatCount(g.step)}${extra}, up to ${formatCount(g.last)}: every figure is exact at each stop.`;
 }
