@@ -29,9 +29,13 @@ function policy(script: string | null): string {
   return `default-src 'none';${scripts} style-src 'unsafe-inline'; img-src data:; base-uri 'none'; form-action 'none'`;
 }
 
-/** The page's data as a JSON data block (`<` written as `\u003c`, so no text in it can end the block). */
+/**
+ * The page's data as a JSON data block (`<` written as `\u003c`, so no text in it can end the block):
+ * what the script reads, so not the OOV count bands, which the page shows as a table of their own.
+ */
 function dataBlock(data: PageData): string {
-  return `<script type="application/json" id="page-data">${JSON.stringify(data).replace(/</g, '\\u003c')}</script>`;
+  const read: Omit<PageData, 'oovBands'> & { oovBands?: undefined } = { ...data, oovBands: undefined };
+  return `<script type="application/json" id="page-data">${JSON.stringify(read).replace(/</g, '\\u003c')}</script>`;
 }
 
 /**

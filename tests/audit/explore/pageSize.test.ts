@@ -2,6 +2,7 @@
 // with the corpus's distinct tokens, documents, lengths or labels (issue 16: at most 2 MB). Checked on
 // a generated corpus of 250,000 distinct tokens, 260 labels and 2,000 distinct lengths: the page must
 // be within 2 MB even if every embedded figure had the 16 digits of the largest count below 2^53.
+import { readFile, writeFile } from 'node:fs/promises';
 import { describe, expect, it } from 'vitest';
 import { auditReport } from '../../../src/audit/auditCorpus.js';
 import { CAP_FIGURES, LENGTH_FIGURES, LIVE_LABELS, PAGE_BYTES, capGrid } from '../../../src/audit/explore/pageBudget.js';
@@ -13,6 +14,8 @@ import { freeze } from '../../../src/lexicon/freeze.js';
 import { auditCountsOnThreads } from '../../../src/pipeline/auditOnThreads.js';
 import { resolveRules } from '../../../src/rules/TextRules.js';
 import { Tally } from '../../../src/tally/Tally.js';
+import { SHOWN_TOKEN_MOST, shownToken } from '../../../src/audit/report/shownToken.js';
+import { cli, freshFolderEachTest } from '../../helpers/cli.js';
 import { letters, seeded } from '../../helpers/generatedCorpora.js';
 
 const TYPES = 250_000;
@@ -59,4 +62,39 @@ describe('the report page size', () => {
     const written = series.reduce((sum, s) => sum + [...s.kept, ...s.documentsUpTo, ...s.tokensUpTo].reduce((n, v) => n + String(v).length + 1, 0), 0);
     expect(bytes - written + 17 * (capFigures + lengthFigures)).toBeLessThanOrEqual(PAGE_BYTES);
   }, 120_000);
+});
+
+// Long tokens (pasted data, base64 blobs) are the only text of a corpus the page lists at their own
+// length: each is shown shortened (shownToken), in the top OOV list, the count bands and drift alike.
+describe('the report page with very long tokens', () => {
+  const tmp = freshFolderEachTest();
+  const long = (i: number) => `${letters(i)}${'q'.repeat(100_000)}`;
+
+  it.each([
+    ['the top OOV list', (i: number) => (i % 2 === 0 ? 2 : 1), 'Most frequent of the corpus'],
+    ['the count bands', () => 1, 'OOV tokens by count'],
+  ])('stays within the bound listing 60 tokens of 100,000 characters in %s', async (_where, times, heading) => {
+    const lines = Array.from({ length: 5 }, () => 'a b c');
+    for (let i = 0; i < 60; i++) for (let k = 0; k < times(i); k++) lines.push(long(i));
+    await writeFile(tmp.path('long.txt'), `${lines.join('\n')}\n`);
+    const r = await cli('audit', tmp.path('long.txt'), '--cap', '3', '--report', tmp.path('page.html'), '-q');
+    expect([r.code, r.stderr]).toEqual([0, '']);
+    const html = await readFile(tmp.path('page.html'), 'utf8');
+    expect(html.toLowerCase()).toContain(heading.toLowerCase());
+    expect(new TextEncoder().encode(html).length).toBeLessThanOrEqual(PAGE_BYTES / 4);
+    expect(html).toContain(shownToken(long(0)));
+    expect(html).not.toContain('q'.repeat(SHOWN_TOKEN_MOST));
+  });
+
+  it('stays within the bound listing unseen tokens of 100,000 characters in drift', async () => {
+    await writeFile(tmp.path('train.txt'), 'a b c\n');
+    await writeFile(tmp.path('live.txt'), `${Array.from({ length: 60 }, (_, i) => long(i)).join('\n')}\n`);
+    expect((await cli('build', tmp.path('train.txt'), '-o', tmp.path('lex.json'))).code).toBe(0);
+    const r = await cli('audit', tmp.path('live.txt'), '--lexicon', tmp.path('lex.json'), '--report', tmp.path('page.html'), '-q');
+    expect([r.code, r.stderr]).toEqual([0, '']);
+    const html = await readFile(tmp.path('page.html'), 'utf8');
+    expect(new TextEncoder().encode(html).length).toBeLessThanOrEqual(PAGE_BYTES / 4);
+    expect(html).toContain(shownToken(long(0)));
+    expect(html).not.toContain('q'.repeat(SHOWN_TOKEN_MOST));
+  });
 });

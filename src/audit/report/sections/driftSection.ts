@@ -3,6 +3,7 @@ import { escapeHtml } from '../escapeHtml.js';
 import { formatCount } from '../formatCount.js';
 import { formatPercent, UNIT_SPACE } from '../formatPercent.js';
 import { formatTick } from '../formatTick.js';
+import { shownToken } from '../shownToken.js';
 import { groupedBars, type BarSeries } from '../svg/groupedBars.js';
 import { PALETTE } from '../svg/palette.js';
 import { chartFigure } from './chartFigure.js';
@@ -95,7 +96,7 @@ export function driftSection(drift: Drift): string {
       : htmlTable(
           `The ${formatCount(drift.unseenTokens.length)} most frequent unseen tokens (basis: ${drift.unseenBasis})`,
           [{ heading: 'token', code: true }, { heading: 'count', numeric: true }],
-          drift.unseenTokens.map((t) => [t.token, formatCount(t.count)]),
+          drift.unseenTokens.map((t) => [shownToken(t.token), formatCount(t.count)]),
         ),
   );
   return `<section id="drift">${parts.join('\n')}</section>`;

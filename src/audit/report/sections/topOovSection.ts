@@ -3,6 +3,7 @@ import type { OovBand } from '../../explore/oovBands.js';
 import { formatCount } from '../formatCount.js';
 import { formatPercent } from '../formatPercent.js';
 import { shareOf } from '../shareOf.js';
+import { shownToken } from '../shownToken.js';
 import { htmlTable } from './htmlTable.js';
 import { note } from './note.js';
 
@@ -18,7 +19,7 @@ function bandsTable(report: CoverageReport, bands: readonly OovBand[]): string {
     htmlTable(
       `OOV tokens by count: ${formatCount(report.oovTokens)} occurrences of ${formatCount(types)} distinct tokens`,
       [{ heading: 'occurs' }, { heading: 'distinct tokens', numeric: true }, { heading: 'share of OOV occurrences', numeric: true }, { heading: 'first few, in string order', code: true }],
-      bands.map((b) => [b.name, formatCount(b.types), formatPercent(shareOf(b.occurrences, report.oovTokens)), b.sample.join(' · ')]),
+      bands.map((b) => [b.name, formatCount(b.types), formatPercent(shareOf(b.occurrences, report.oovTokens)), b.sample.map(shownToken).join(' · ')]),
     )
   );
 }
@@ -34,7 +35,7 @@ export function topOovSection(report: CoverageReport, bands: readonly OovBand[] 
   const table = htmlTable(
     `The ${formatCount(report.topOov.length)} most frequent of the corpus's ${formatCount(report.oovTokens)} OOV token occurrences`,
     [{ heading: 'token', code: true }, { heading: 'count', numeric: true }, { heading: 'share of tokens', numeric: true }],
-    report.topOov.map((t) => [t.token, formatCount(t.count), formatPercent(shareOf(t.count, report.tokens))]),
+    report.topOov.map((t) => [shownToken(t.token), formatCount(t.count), formatPercent(shareOf(t.count, report.tokens))]),
   );
   return `<section id="oov">${heading}${table}</section>`;
 }
