@@ -43,7 +43,8 @@ per label, the caps and lengths that would cover 90/95/99 %, the most frequent O
   --text FIELD, --label FIELD, --bad-text fail|replace|skip, --record-limit MiB   as in lexlock build
   --no-labels           audit without labels (a lexicon with labels otherwise needs them read)
   --json                print the report as one JSON object
-  --report FILE.html    also write a self-contained HTML page with the charts (--force to overwrite)
+  --report FILE.html    also write a self-contained HTML page: the charts, and a cap and a length control that
+                        recompute the figures in the page (--force to overwrite)
   --max-oov R           exit 3 when the OOV rate is above R (a share such as 0.05, or 5%)
   --max-truncated R     exit 3 when the share of truncated documents is above R
   --threads N           worker threads (default: the machine's cores from 8 MiB of corpus); the report is the same for any N
