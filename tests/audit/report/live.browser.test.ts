@@ -322,6 +322,30 @@ describe('the report page controls in Chromium', () => {
     await page.close();
   });
 
+  // A browser may break a line after any hyphen, so a flag could wrap as "-" and "-cut"; each word of
+  // the build line keeps to one line, and wraps only at the spaces between words (its text unchanged).
+  it('wraps the build line only between words, before and after the controls move', async () => {
+    const page = await openPage('corpus.html');
+    await page.setViewportSize({ width: 420, height: 1200 });
+    const words = async () =>
+      page.locator('#build-line span').evaluateAll((spans) => spans.map((s) => ({ text: s.textContent ?? '', lines: new Set(Array.from(s.getClientRects()).map((r) => Math.round(r.top))).size })));
+    const check = async () => {
+      const found = await words();
+      const text = (await page.locator('#build-line').textContent()) ?? '';
+      expect(found.map((w) => w.text)).toEqual(text.split(' '));
+      expect(found.filter((w) => w.lines !== 1)).toEqual([]);
+      // At this width the line does wrap, so the check above is about something.
+      const box = await page.locator('#build-line').boundingBox();
+      expect(box?.height ?? 0).toBeGreaterThan(40);
+    };
+    await check();
+    await page.locator('#cap-number').fill('350');
+    await page.locator('#length-number').fill('33');
+    expect(await page.locator('#build-line').textContent()).toContain('--cap 350 --length 33 ');
+    await check();
+    await page.close();
+  });
+
   it('prints on A4 without the controls, every chart within the printable width', async () => {
     const page = await openPage('corpus.html');
     const printable = Math.floor(((210 - 2 * 14) / 25.4) * 96); // A4 less the page's 14 mm margins, at 96 px an inch

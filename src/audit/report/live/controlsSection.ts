@@ -3,10 +3,18 @@ import { stopsOf } from '../../explore/StopGrid.js';
 import { escapeHtml } from '../escapeHtml.js';
 import { formatCount } from '../formatCount.js';
 
-/** The `lexlock build` line for a cap and a length (null: none set), as the page's script writes it. */
-export function buildLine(data: PageData, cap: number, length: number | null): string {
+/** The words of the `lexlock build` line for a cap and a length (null: none set), as the page's script writes them. */
+export function buildLineWords(data: PageData, cap: number, length: number | null): string[] {
   const shape = length === null ? [] : ['--length', String(length), '--pad', data.pad, '--cut', data.cut];
-  return ['lexlock build', ...data.build.head, '--cap', String(cap), ...shape, ...data.build.tail].join(' ');
+  return ['lexlock', 'build', ...data.build.head, '--cap', String(cap), ...shape, ...data.build.tail];
+}
+
+/**
+ * The build line's words as the page shows them: each in a span kept on one line (a browser would
+ * otherwise break a flag after its hyphen), spaces between; the text is the line itself.
+ */
+export function buildLineMarkup(words: readonly string[]): string {
+  return words.map((w) => `<span>${escapeHtml(w)}</span>`).join(' ');
 }
 
 /** The index of the stop nearest a value (the lower of two as near). */
@@ -68,7 +76,7 @@ export function controlsSection(data: PageData, fallbackLength: number): string 
     `<p class="note">The controls move the summary's OOV, truncation, dropped and padding figures, the OOV rate, truncated share, dropped tokens and padding share of each label, and the chosen markers of the coverage chart and the length histogram; the other charts and tables stay at the audited cap and length.${escapeHtml(leftOut)}</p>`,
     '</div>',
     '<p class="note" id="controls-off">This page shows the audited cap and length; open it in a browser that runs its script to try others.</p>',
-    `<p class="build-line">To build a lexicon with these settings: <code id="build-line">${escapeHtml(buildLine(data, data.cap.chosen, data.length.chosen))}</code></p>`,
+    `<p class="build-line">To build a lexicon with these settings: <code id="build-line">${buildLineMarkup(buildLineWords(data, data.cap.chosen, data.length.chosen))}</code></p>`,
     '</section>',
   ].join('\n');
 }

@@ -154,7 +154,15 @@ export const PAGE_SCRIPT = String.raw`
     var covered = shareOf(all.kept, overall.tokens);
     moveMarker('cap-marker', cap, covered * 100, 'chosen cap ' + count(cap) + ': ' + percent(covered) + ' covered' + (data.ranking === 'lexicon' ? ' by the lexicon' : ''));
     moveMarker('length-marker', length + 0.5, null, 'chosen length ' + count(length) + ': ' + percent(shareOf(all.truncated, overall.documents)) + ' truncated');
-    buildLine.textContent = ['lexlock build'].concat(data.build.head, ['--cap', String(cap), '--length', String(length), '--pad', data.pad, '--cut', data.cut], data.build.tail).join(' ');
+    var words = ['lexlock', 'build'].concat(data.build.head, ['--cap', String(cap), '--length', String(length), '--pad', data.pad, '--cut', data.cut], data.build.tail);
+    // Each word in a span of its own (kept on one line by the page's style), a space between.
+    buildLine.textContent = '';
+    words.forEach(function (word, i) {
+      if (i > 0) buildLine.appendChild(document.createTextNode(' '));
+      var span = document.createElement('span');
+      span.textContent = word;
+      buildLine.appendChild(span);
+    });
   }
 
   function follow(range, number, stops) {
