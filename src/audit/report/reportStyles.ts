@@ -46,9 +46,8 @@ svg.chart .bar-value { font-variant-numeric: tabular-nums; }
 .control input[type="number"] { font: inherit; width: 7.5rem; font-variant-numeric: tabular-nums; }
 .control input[type="range"] { width: 100%; accent-color: ${PALETTE.primary}; }
 .control input:focus-visible { outline: 2px solid ${PALETTE.accent}; outline-offset: 2px; }
-.build-line code { display: block; margin-top: 0.3rem; padding: 6px 8px; background: #f6f7f9; border: 1px solid ${PALETTE.grid}; border-radius: 4px; user-select: all; }
+.build-line code { display: block; margin-top: 0.3rem; padding: 6px 8px; background: #f6f7f9; border: 1px solid ${PALETTE.grid}; border-radius: 4px; user-select: all; overflow-x: auto; }
 .build-line code span { white-space: nowrap; }
-.build-line code { overflow-x: auto; }
 footer { max-width: 760px; margin: 0 auto; padding: 8px 28px 24px; font-size: 0.8rem; color: ${PALETTE.muted}; }
 @media (max-width: 560px) { .cards { grid-template-columns: repeat(2, 1fr); } main { padding: 16px; } .control { grid-template-columns: 1fr 7.5rem; } .control label { grid-column: 1 / -1; } }
 @page { size: A4; margin: 14mm; }
