@@ -51,7 +51,7 @@ function table(rows: string[][], paint: Paint): string {
     .join('\n');
 }
 
-const lengths = (l: CoverageReport['length']) => `min ${l.min}  p50 ${l.p50}  p90 ${l.p90}  p95 ${l.p95}  p99 ${l.p99}  max ${l.max}`;
+const lengths = (l: CoverageReport['length']) => `min ${count(l.min)}  p50 ${count(l.p50)}  p90 ${count(l.p90)}  p95 ${count(l.p95)}  p99 ${count(l.p99)}  max ${count(l.max)}`;
 
 /** The audit as a compact, aligned terminal summary. */
 export function auditSummary(report: CoverageReport, heading: string, gates: Gates, paint: Paint): string {
@@ -81,7 +81,7 @@ export function auditSummary(report: CoverageReport, heading: string, gates: Gat
   ]);
   if (report.capTie !== null) rows.push(['lexicon cap', describeCapTie(report.capTie)]);
   rows.push(...identifyingRows(report.identifyingTokens));
-  rows.push(['lengths that fit', `90 % of documents: ${s.lengthFor90}, 95 %: ${s.lengthFor95}, 99 %: ${s.lengthFor99}`]);
+  rows.push(['lengths that fit', `90 % of documents: ${count(s.lengthFor90)}, 95 %: ${count(s.lengthFor95)}, 99 %: ${count(s.lengthFor99)}`]);
   if (report.documents > 0) rows.push(['cut end', `${describeCutAdvice(s.cut)}${s.cut.cut === null ? '' : ` (--cut ${s.cut.cut})`}`]);
   if (report.topOov.length > 0) {
     rows.push(['top OOV', report.topOov.slice(0, 10).map((t) => `${t.token} (${count(t.count)})`).join(', ')]);

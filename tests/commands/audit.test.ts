@@ -158,6 +158,17 @@ describe('lexlock audit', () => {
   });
 });
 
+describe('lexlock audit: long documents in the summary', () => {
+  // Lengths are counts like the others in the summary, so they are grouped by thousands too.
+  it('writes lengths of a thousand tokens and more with thousands separators', async () => {
+    await writeFile(tmp.path('long.txt'), ['a '.repeat(1000), 'b '.repeat(1200), 'c '.repeat(15000)].join('\n') + '\n');
+    const r = await cli('audit', tmp.path('long.txt'), '--cap', '2');
+    expect(r.code).toBe(0);
+    expect(r.stdout).toContain('tokens/document   min 1,000  p50 1,200  p90 15,000  p95 15,000  p99 15,000  max 15,000\n');
+    expect(r.stdout).toContain('lengths that fit  90 % of documents: 15,000, 95 %: 15,000, 99 %: 15,000\n');
+  });
+});
+
 describe('lexlock audit: the report page controls', () => {
   // The note under the controls names the range they take: its first cap and length are the number
   // boxes' least values (a cap of 0 is no cap lexlock build takes).
