@@ -111,8 +111,20 @@ export class TallyPartReader {
     await this.#lines.return?.();
   }
 
-  /** Moves to the next entry (true), or checks the end of the file and the totals (false). */
+  /**
+   * Moves to the next entry (true), or checks the end of the file and the totals (false). A broken
+   * line stops the reading there: the lines' source is closed (its file with it), then the error thrown.
+   */
   async next(): Promise<boolean> {
+    try {
+      return await this.#next();
+    } catch (e) {
+      await this.close();
+      throw e;
+    }
+  }
+
+  async #next(): Promise<boolean> {
     for (;;) {
       const line = await this.#nextLine();
       if (line === null) {

@@ -80,3 +80,4 @@ describe('loadTally past the size of one JSON text', () => {
     ]);
   });
 });
+

@@ -7,7 +7,7 @@ import type { TallyFile } from '../../src/tally/tallyFile.js';
 import { tallyFileMerge } from '../../src/tally/tallyFileMerge.js';
 import { tallyFileText, tallyHeaderLines, TALLY_COUNTS_CLOSE, TALLY_COUNTS_OPEN } from '../../src/tally/tallyFileText.js';
 import { mergeTallyLines } from '../../src/tally/mergeTallyLines.js';
-import type { TallyLines } from '../../src/tally/TallyPartReader.js';
+import { TallyPartReader, type TallyLines } from '../../src/tally/TallyPartReader.js';
 
 interface Doc {
   text: string;
@@ -155,6 +155,28 @@ describe('mergeTallyLines', () => {
     const [code] = await failure([watched('big.tally', big), watched('p.tally', broken), watched('late.tally', big)]);
     expect(code).toBe('BAD_TALLY');
     expect(closed.sort()).toEqual(['big.tally', 'late.tally', 'p.tally']);
+  });
+
+  // loadTally reads a large tally with one TallyPartReader and no merge around it: the reader itself
+  // must stop its source when a line is broken, or the file stays open until garbage collection.
+  it('a part reader closes its source when a line is broken, with nothing around it to do so', async () => {
+    let closed = false;
+    const broken = valid.replace('    ["b",2,1]', '    ["b",2,1');
+    const lines = (async function* () {
+      try {
+        yield* grouped(broken, 1);
+      } finally {
+        closed = true;
+      }
+    })();
+    const part = await TallyPartReader.open({ name: 'p.tally', lines });
+    let error: unknown;
+    try {
+      while (await part.next());
+    } catch (e) {
+      error = e;
+    }
+    expect([isLexlockError(error) ? error.code : error, closed]).toEqual(['BAD_TALLY', true]);
   });
 
   it('reads a file that starts with a byte order mark', async () => {
