@@ -80,4 +80,3 @@ describe('loadTally past the size of one JSON text', () => {
     ]);
   });
 });
-
