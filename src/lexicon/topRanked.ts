@@ -17,6 +17,7 @@ export function topRanked(
   accept: (token: string, count: number) => boolean = () => true,
 ): Array<[string, number]> {
   if (n <= 0) return [];
+  if (n === Number.POSITIVE_INFINITY) return allRanked(each, accept);
   // A binary heap ordered so that the token ranking last is at the root.
   const tokens: string[] = [];
   const counts: number[] = [];
@@ -62,4 +63,25 @@ export function topRanked(
   });
   const out: Array<[string, number]> = tokens.map((t, i) => [t, counts[i] as number]);
   return out.sort((a, b) => b[1] - a[1] || (a[0] < b[0] ? -1 : a[0] > b[0] ? 1 : 0));
+}
+
+/**
+ * Every accepted token in rank order: grouped by count, the counts descending, each group sorted by
+ * the built-in string sort (UTF-16 code units, the order `<` gives). Ranking all tokens this way
+ * compares strings only within a count (most tokens of a corpus share a few small counts) and in
+ * native code, where a heap of every token would compare them all in script.
+ */
+function allRanked(each: (visit: (token: string, count: number) => void) => void, accept: (token: string, count: number) => boolean): Array<[string, number]> {
+  const groups = new Map<number, string[]>();
+  each((token, count) => {
+    if (!accept(token, count)) return;
+    const group = groups.get(count);
+    if (group === undefined) groups.set(count, [token]);
+    else group.push(token);
+  });
+  const out: Array<[string, number]> = [];
+  for (const count of [...groups.keys()].sort((a, b) => b - a)) {
+    for (const token of (groups.get(count) as string[]).sort()) out.push([token, count]);
+  }
+  return out;
 }
